@@ -1,0 +1,11 @@
+/**
+ * The registry of `compute` kinds. Each kind is one module in this folder exporting a `ComputeKind`;
+ * add one import line and one entry below. Input validation errors are `InputError`s (exit code 2).
+ */
+export interface ComputeKind {
+  /** One line for `multiplet compute --help` and the README. */
+  summary: string;
+  run(input: Record<string, unknown>): unknown | Promise<unknown>;
+}
+
+export const COMPUTE_KINDS: Record<string, ComputeKind> = {};
