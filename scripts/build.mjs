@@ -4,41 +4,8 @@
 // Type checking is separate: `npm run typecheck` (tsc --noEmit over the whole workspace).
 import * as esbuild from 'esbuild';
 import { readdirSync, statSync, mkdirSync } from 'node:fs';
-import { join, dirname, basename, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
-
-const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
-const outdir = join(root, 'packages/cli/dist');
-mkdirSync(outdir, { recursive: true });
-
-const workspaceSources = {
-  '@multiplet/physics': 'packages/physics/src',
-  '@multiplet/cells': 'packages/cells/src',
-  '@multiplet/cli': 'packages/cli/src',
-  '@multiplet/kernel-bridge': 'kernel-bridge/src',
-};
-
-/** Resolve @multiplet/* to TypeScript sources; leave every other bare import to Node at run time. */
-const workspacePlugin = {
-  name: 'multiplet-workspace',
-  setup(build) {
-    build.onResolve({ filter: /^@multiplet\// }, async (args) => {
-      for (const [name, dir] of Object.entries(workspaceSources)) {
-        if (args.path === name || args.path.startsWith(name + '/')) {
-          const rest = args.path.slice(name.length).replace(/^\//, '');
-          const target = rest ? join(root, dir, rest) : join(root, dir, 'index.ts');
-          const r = await build.resolve('./' + basename(target), { resolveDir: dirname(target), kind: args.kind });
-          return { path: r.path };
-        }
-      }
-      return undefined;
-    });
-    build.onResolve({ filter: /^[^./]/ }, (args) => {
-      if (args.path.startsWith('@multiplet/')) return undefined;
-      return { path: args.path, external: true };
-    });
-  },
-};
+import { join, basename } from 'node:path';
+import { root, workspaceSources, nodeBundleOptions } from './esbuild-workspace.mjs';
 
 function findWorkers(dir, found = []) {
   for (const entry of readdirSync(dir)) {
@@ -58,13 +25,6 @@ const started = Date.now();
 await esbuild.build({
   entryPoints,
   outdir,
-  bundle: true,
-  platform: 'node',
-  format: 'esm',
-  target: 'node20',
-  sourcemap: true,
-  logLevel: 'warning',
-  plugins: [workspacePlugin],
-  banner: { js: "import { createRequire as __multipletCreateRequire } from 'module'; const require = __multipletCreateRequire(import.meta.url);" },
+  ...nodeBundleOptions,
 });
 console.log(`build: ${Object.keys(entryPoints).length} entry points -> packages/cli/dist (${Date.now() - started} ms)`);
