@@ -17,6 +17,9 @@ function findWorkers(dir, found = []) {
   return found;
 }
 
+const outdir = join(root, 'packages/cli/dist');
+mkdirSync(outdir, { recursive: true });
+
 const workerEntries = Object.values(workspaceSources).flatMap((d) => findWorkers(join(root, d)));
 const entryPoints = { multiplet: join(root, 'packages/cli/src/main.ts') };
 for (const w of workerEntries) entryPoints[basename(w, '.ts')] = w;
