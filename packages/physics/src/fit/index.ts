@@ -1,0 +1,14 @@
+/**
+ * `@multiplet/physics/fit`: least squares (Levenberg–Marquardt with bounds), covariance, multi-start global search
+ * with distinct minima, affine-invariant ensemble MCMC, optimal assignment, and the crystal-field fits built on them.
+ */
+export type { LeastSquaresProblem, ParameterBounds, CovarianceSummary } from './types';
+export { levenbergMarquardt } from './levenbergMarquardt';
+export type { LevenbergMarquardtOptions, LevenbergMarquardtResult, LevenbergMarquardtStop } from './levenbergMarquardt';
+export { covarianceFromJacobian } from './covariance';
+export { finiteDifferenceJacobian } from './finiteDifferenceJacobian';
+export { multiStartSearch } from './multiStartSearch';
+export type { MultiStartOptions, MultiStartResult, FitMinimum } from './multiStartSearch';
+export { ensembleSampler, integratedAutocorrelationTime } from './ensembleSampler';
+export type { EnsembleSamplerOptions, EnsembleSamplerResult, EnsembleStart } from './ensembleSampler';
+export { solveAssignment } from './solveAssignment';
