@@ -20,6 +20,7 @@ import {
   classicalElectronRadius as classicalElectronRadiusQ,
   neutronMass as neutronMassQ,
   reducedPlanckConstant as reducedPlanckQ,
+  bohrRadius as bohrRadiusQ,
 } from 'mathjs';
 
 type MathjsUnitLike = { toNumber(unit: string): number };
@@ -52,6 +53,12 @@ export const NEUTRON_MASS_KG = si(neutronMassQ, 'kg');
  * Used for the magnetic scattering length prefactor (γ r0 / 2).
  */
 export const NEUTRON_GYROMAGNETIC_RATIO = 1.91304273;
+
+/** Bohr radius a0 in Å (CODATA 2018), for ⟨r^n⟩ tabulated in bohr^n. */
+export const BOHR_RADIUS_ANGSTROM = si(bohrRadiusQ, 'm') * 1e10;
+/** e²/(4πε0) in meV·Å (≈ 14399.6): Coulomb energy of two elementary charges 1 Å apart; ε0 = 1/(μ0 c²). */
+export const COULOMB_MEV_ANGSTROM =
+  (ELEMENTARY_CHARGE_C ** 2 * MU0_T_M_PER_A * SPEED_OF_LIGHT_M_PER_S ** 2) / (4 * Math.PI) / (1e-3 * ELEMENTARY_CHARGE_C) * 1e10;
 
 /** 1 meV in joules. */
 export const MEV_IN_J = 1e-3 * ELEMENTARY_CHARGE_C;
