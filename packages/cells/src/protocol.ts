@@ -28,8 +28,13 @@ export interface ExecuteOptions {
 export type ExecuteOutcome =
   | {
       status: 'ok';
-      /** The execute_result bundle, if the cell produced a value. */
-      result?: { data: MimeBundle; metadata: Record<string, unknown> };
+      /**
+       * The execute_result bundle, if the cell produced a value. Typed cells always return one, with a
+       * `displayId` (added by the cells package, compatible extension): hosts send it as
+       * `transient.display_id` of the execute_result so that later `update_display_data` messages (a rerun
+       * after a live-control change, rerun-stale) replace it in place. Display ids are unique per session.
+       */
+      result?: { data: MimeBundle; metadata: Record<string, unknown>; displayId?: string };
     }
   | {
       status: 'error';
