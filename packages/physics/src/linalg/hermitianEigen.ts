@@ -278,7 +278,7 @@ function tridiagonalize(ws: EigenWorkspace): void {
         alpha2 += x * x + y * y;
       }
       const x0r = ar[s * n + k], x0i = ai[s * n + k];
-      const x0 = Math.hypot(x0r, x0i);
+      const x0 = fastHypot(x0r, x0i);
       const tail2 = alpha2 - x0 * x0;
       // Skip when the column below the sub-diagonal is already zero (tail negligible relative to the column).
       if (tail2 > 1e-300 && tail2 > 1e-32 * alpha2) {
@@ -325,16 +325,24 @@ function tridiagonalize(ws: EigenWorkspace): void {
           tr[i] -= K * vr[vk + i];
           ti[i] -= K * vi[vk + i];
         }
-        // A ← A − v q† − q v† on the trailing block.
+        // A ← A − v q† − q v† on the trailing block: lower triangle computed, upper mirrored (Hermitian).
         for (let i = s; i < n; i++) {
           const row = i * n;
           const v_r = vr[vk + i], v_i = vi[vk + i], q_r = tr[i], q_i = ti[i];
-          for (let j = s; j < n; j++) {
-            const qj_r = tr[j], qj_i = -ti[j]; // conj(q_j)
-            const vj_r = vr[vk + j], vj_i = -vi[vk + j]; // conj(v_j)
-            ar[row + j] -= v_r * qj_r - v_i * qj_i + (q_r * vj_r - q_i * vj_i);
-            ai[row + j] -= v_r * qj_i + v_i * qj_r + (q_r * vj_i + q_i * vj_r);
+          for (let j = s; j < i; j++) {
+            const qj_r = tr[j], qj_i = ti[j];
+            const vj_r = vr[vk + j], vj_i = vi[vk + j];
+            // v_i conj(q_j) + q_i conj(v_j)
+            const dr = v_r * qj_r + v_i * qj_i + q_r * vj_r + q_i * vj_i;
+            const di = v_i * qj_r - v_r * qj_i + q_i * vj_r - q_r * vj_i;
+            const xr = ar[row + j] - dr, xi = ai[row + j] - di;
+            ar[row + j] = xr;
+            ai[row + j] = xi;
+            ar[j * n + i] = xr;
+            ai[j * n + i] = -xi;
           }
+          ar[row + i] -= 2 * (v_r * q_r + v_i * q_i);
+          ai[row + i] = 0;
         }
         // Column k now holds −φ α at row s and zeros below.
         ar[s * n + k] = -phr * alpha;
@@ -354,7 +362,7 @@ function tridiagonalize(ws: EigenWorkspace): void {
   let phaseR = 1, phaseI = 0;
   for (let k = 0; k < n - 1; k++) {
     const tr_ = offR[k], ti_ = offI[k];
-    const m = Math.hypot(tr_, ti_);
+    const m = fastHypot(tr_, ti_);
     e[k] = m;
     // store phase of index k before overwriting offR[k]/offI[k] (they share storage with pr/pi)
     offR[k] = phaseR;
@@ -392,7 +400,8 @@ function tridiagonalQL(ws: EigenWorkspace, wantVectors: boolean, field: string):
         throw new InputError(field, `no convergence after ${MAX_ITERATIONS} QL iterations`, 'a matrix the QL iteration can diagonalise');
       // Wilkinson shift from the leading 2×2 block.
       let g = (d[l + 1] - d[l]) / (2 * e[l]);
-      let r = Math.hypot(g, 1);
+      let r = Math.sqrt(g * g + 1);
+      if (!Number.isFinite(r)) r = Math.abs(g);
       g = d[m] - d[l] + e[l] / (g + (g >= 0 ? r : -r));
       let s = 1, c = 1, p = 0;
       let i = m - 1;
@@ -400,7 +409,7 @@ function tridiagonalQL(ws: EigenWorkspace, wantVectors: boolean, field: string):
       for (; i >= l; i--) {
         const f = s * e[i];
         const b = c * e[i];
-        r = Math.hypot(f, g);
+        r = fastHypot(f, g);
         e[i + 1] = r;
         if (r === 0) {
           d[i + 1] -= p;
@@ -430,6 +439,16 @@ function tridiagonalQL(ws: EigenWorkspace, wantVectors: boolean, field: string):
       e[m] = 0;
     }
   }
+}
+
+/**
+ * sqrt(x² + y²) without Math.hypot's cost (slow in V8); falls back to Math.hypot when the squares would overflow
+ * or underflow.
+ */
+function fastHypot(x: number, y: number): number {
+  const s = x * x + y * y;
+  if (s > 1e-290 && s < 1e290) return Math.sqrt(s);
+  return Math.hypot(x, y);
 }
 
 /**
