@@ -39,7 +39,7 @@ describe('execute', () => {
     const out = h.forRequest(second);
     expect(describeSent(out)).toEqual(['iopub:status:busy', 'iopub:execute_input', 'iopub:execute_result', 'shell:execute_reply', 'iopub:status:idle']);
     expect(out[1]!.message.content).toEqual({ code: 'value 42', execution_count: 2 });
-    expect(out[2]!.message.content).toEqual({ execution_count: 2, data: { 'text/plain': '42' }, metadata: {} });
+    expect(out[2]!.message.content).toEqual({ execution_count: 2, data: { 'text/plain': '42' }, metadata: {}, transient: {} });
     expect(out[3]!.message.content).toMatchObject({ status: 'ok', execution_count: 2 });
   });
 
@@ -47,7 +47,9 @@ describe('execute', () => {
     const h = createHarness();
     const show = h.request('shell', 'execute_request', { code: 'show plot' });
     const clear = h.request('shell', 'execute_request', { code: 'clear' });
+    const named = h.request('shell', 'execute_request', { code: 'named levels' });
     await h.router.drained();
+    expect(h.forRequest(named)[2]!.message.content.transient).toEqual({ display_id: 'r-levels' });
     const [, , display, update] = h.forRequest(show);
     expect(display!.message.content).toEqual({ data: { 'text/plain': 'plot' }, metadata: {}, transient: { display_id: 'd1' } });
     expect(update!.message.header.msg_type).toBe('update_display_data');

@@ -4,6 +4,7 @@
  *   say TEXT        → stdout stream
  *   warn TEXT       → stderr stream
  *   value TEXT      → execute_result text/plain TEXT
+ *   named TEXT      → execute_result with display id r-TEXT
  *   show TEXT       → display_data (display id "d1"), then update_display_data
  *   clear           → clear_output
  *   fail TEXT       → error outcome
@@ -43,6 +44,8 @@ export function createSessionDouble(): SessionDouble {
           return { status: 'ok' };
         case 'value':
           return { status: 'ok', result: { data: { 'text/plain': text }, metadata: {} } };
+        case 'named':
+          return { status: 'ok', result: { data: { 'text/plain': text }, metadata: {}, displayId: `r-${text}` } };
         case 'show':
           options.emit({ type: 'display_data', data: { 'text/plain': text }, metadata: {}, displayId: 'd1' });
           options.emit({ type: 'update_display_data', data: { 'text/plain': text + '!' }, metadata: {}, displayId: 'd1' });

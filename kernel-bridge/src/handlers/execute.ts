@@ -53,7 +53,9 @@ export const execute: Handler = async (ctx) => {
 
   if (outcome.status === 'ok') {
     if (outcome.result && !silent) {
-      ctx.publish('execute_result', { execution_count: executionCount, data: outcome.result.data, metadata: outcome.result.metadata });
+      const { data, metadata, displayId } = outcome.result;
+      // A display id lets later update_display_data messages (reruns after a control change) replace the result.
+      ctx.publish('execute_result', { execution_count: executionCount, data, metadata, transient: displayId !== undefined ? { display_id: displayId } : {} });
     }
     if (storeHistory) {
       const plain = outcome.result?.data['text/plain'];

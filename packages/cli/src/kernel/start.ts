@@ -1,0 +1,53 @@
+/**
+ * `multiplet kernel start --connection-file FILE`: run the Jupyter kernel on one cells session until a
+ * shutdown_request (or SIGTERM). SIGINT interrupts the running cell instead of ending the process.
+ */
+import { readConnectionFile, startKernel } from '@multiplet/kernel-bridge';
+import { createCellSession } from '@multiplet/cells/session/session';
+
+export const START_USAGE = 'multiplet kernel start --connection-file FILE';
+
+export function parseStartArgs(args: string[]): { connectionFile: string } | string {
+  let connectionFile: string | undefined;
+  for (let i = 0; i < args.length; i++) {
+    const arg = args[i]!;
+    if (arg === '--connection-file' || arg === '-f') connectionFile = args[++i];
+    else if (arg.startsWith('--connection-file=')) connectionFile = arg.slice('--connection-file='.length);
+    else return `unknown option ${JSON.stringify(arg)}`;
+  }
+  return connectionFile ? { connectionFile } : 'missing --connection-file FILE';
+}
+
+export async function startCommand(args: string[]): Promise<number> {
+  const parsed = parseStartArgs(args);
+  if (typeof parsed === 'string') {
+    process.stderr.write(`multiplet kernel start: ${parsed}\nusage: ${START_USAGE}\n`);
+    return 2;
+  }
+  const log = (text: string) => process.stderr.write(`[multiplet kernel] ${text}\n`);
+  let connection;
+  try {
+    connection = readConnectionFile(parsed.connectionFile);
+  } catch (err) {
+    process.stderr.write(`multiplet kernel start: ${err instanceof Error ? err.message : String(err)}\n`);
+    return 2;
+  }
+  const session = createCellSession();
+  return new Promise<number>((resolve, reject) => {
+    let stopping = false;
+    const finish = (kernel: { stop(): Promise<void> }) => {
+      if (stopping) return;
+      stopping = true;
+      kernel.stop().then(() => resolve(0), reject);
+    };
+    startKernel({ connection, session, log, onShutdown: (_restart, kernel) => finish(kernel) }).then((kernel) => {
+      // Without a listener Node would exit on SIGINT; the signal is the fallback way to interrupt a cell.
+      process.on('SIGINT', () => {
+        log('SIGINT: interrupting the running cell');
+        kernel.router.interrupt();
+      });
+      process.on('SIGTERM', () => finish(kernel));
+      log(`started on ${connection.transport}://${connection.ip} (shell ${connection.shell_port}), pid ${process.pid}`);
+    }, reject);
+  });
+}
