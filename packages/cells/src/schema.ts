@@ -9,11 +9,13 @@ import { parseQuantity, parseRange, QuantityProblem, unitExample } from './synta
 import { RESULT_NAME } from './syntax/header';
 
 /** A live control for the JupyterLab extension (slider), in the field's unit. */
-export interface ControlSpec {
-  min: number;
-  max: number;
-  step: number;
-}
+export type ControlSpec =
+  | { min: number; max: number; step: number }
+  /**
+   * A slider around the current value: value ± span·|value| (± `zeroSpan` when the value is 0), 1000 steps.
+   * For inputs whose scale varies by orders of magnitude (Stevens parameters).
+   */
+  | { relativeSpan: number; zeroSpan: number };
 
 interface FieldBase {
   /** What the field means, shown by inspection and in the README table. */

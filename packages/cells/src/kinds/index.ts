@@ -5,8 +5,9 @@
 import type { AnyCellKind } from './types';
 import { sampleKind } from './sample';
 import { dataKind } from './data';
+import { crystalFieldKind } from './crystalField';
 
-const KINDS: AnyCellKind[] = [sampleKind, dataKind];
+const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind];
 
 /** Every registered kind by name. */
 export const CELL_KINDS: ReadonlyMap<string, AnyCellKind> = new Map(KINDS.map((k) => [k.kind, k]));

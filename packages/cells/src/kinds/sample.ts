@@ -12,7 +12,7 @@
  *   molarMass: 532.8 g/mol
  */
 import { getIon, ION_NAMES } from '@multiplet/physics/ions';
-import { SITE_SYMMETRIES } from '@multiplet/physics/cef/siteSymmetry';
+import { SITE_SYMMETRIES } from '@multiplet/physics/cef';
 import { InputError } from '@multiplet/physics/errors';
 import { defineKind, type SampleResult } from './types';
 import { formatQuantity, htmlKeyValue } from '../render/format';

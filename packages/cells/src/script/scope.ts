@@ -3,6 +3,7 @@
  * (`physics.units.BOLTZMANN_MEV_PER_K`, `physics.ions.getIon('Dy3+')`, `physics.random.createRandom(1)`, ...).
  * Add a module here when it gains an index.ts.
  */
+import * as cef from '@multiplet/physics/cef';
 import * as errors from '@multiplet/physics/errors';
 import * as fit from '@multiplet/physics/fit';
 import * as ions from '@multiplet/physics/ions';
@@ -12,4 +13,4 @@ import * as quadrature from '@multiplet/physics/quadrature';
 import * as random from '@multiplet/physics/random';
 import * as units from '@multiplet/physics/units';
 
-export const PHYSICS_SCOPE = Object.freeze({ errors, fit, ions, linalg, progress, quadrature, random, units });
+export const PHYSICS_SCOPE = Object.freeze({ cef, errors, fit, ions, linalg, progress, quadrature, random, units });

@@ -94,7 +94,9 @@ export async function runTypedCell(source: string, header: CellHeader, body: str
   };
   const raw = parsed.value;
   const common = coerceRecord(COMMON_FIELDS, Object.fromEntries(Object.entries(raw).filter(([k]) => k in COMMON_FIELDS)), [], coercion, raw);
-  const inputs = coerceRecord(kind.fields, raw, [], coercion, raw, Object.keys(COMMON_FIELDS));
+  // Sibling lookups (a quantity's bareUnitField) see defaults too.
+  const defaults = Object.fromEntries(Object.entries(kind.fields).filter(([, spec]) => spec.default !== undefined).map(([k, spec]) => [k, spec.default]));
+  const inputs = coerceRecord(kind.fields, raw, [], coercion, { ...defaults, ...raw }, Object.keys(COMMON_FIELDS));
   const seed = (common.seed as number | undefined) ?? seedFromName(header.name);
 
   const positionOf = (field: string): SourcePosition | undefined => (field === '' ? headerPosition : parsed.positionOf(pathFromText(field)));
@@ -216,15 +218,13 @@ export function controlsFor(kind: AnyCellKind, inputs: Record<string, JsonValue>
       const path = [...prefix, key];
       const add = (s: FieldSpec, v: JsonValue, p: (string | number)[]): void => {
         if ((s.type === 'quantity' || s.type === 'number') && s.control && typeof v === 'number') {
-          out.push({
-            field: formatPath(p),
-            label: String(p[p.length - 1]),
-            unit: s.type === 'quantity' ? s.unit : '',
-            value: v,
-            min: Math.min(s.control.min, v),
-            max: Math.max(s.control.max, v),
-            step: s.control.step,
-          });
+          const c = s.control;
+          let min: number, max: number, step: number;
+          if ('relativeSpan' in c) {
+            const half = v === 0 ? c.zeroSpan : Math.abs(v) * c.relativeSpan;
+            [min, max, step] = [v - half, v + half, Number(((2 * half) / 1000).toPrecision(3))];
+          } else [min, max, step] = [Math.min(c.min, v), Math.max(c.max, v), c.step];
+          out.push({ field: formatPath(p), label: String(p[p.length - 1]), unit: s.type === 'quantity' ? s.unit : '', value: v, min, max, step });
         }
       };
       if (spec.type === 'map' && typeof value === 'object' && !Array.isArray(value)) {
