@@ -14,3 +14,8 @@ export { normalizeCefParameters, type NormalizeCefOptions } from './normalizeCef
 export { solveCef, classifyDoublet, groupLevels, type CefLevel, type GroundDoublet, type CefSolution, type SolveCefOptions } from './solveCef';
 export { doubletGTensor, type DoubletGTensor } from './groundDoubletGTensor';
 export { describeLevels, type DescribedLevel, type DescribedState, type StateComponent } from './describeLevels';
+export { rotateCefParameters } from './rotateCefParameters';
+export { wignerD, wignerSmallD, eulerAnglesFromMatrix, rotationMatrixFromEuler, type EulerAngles } from './wignerRotation';
+export { cubicToTrigonal, TRIGONAL_FRAME_OF_CUBIC } from './cubicToTrigonal';
+export { stevensToWybourne, wybourneToStevens, stevensWybourneFactor } from './wybourne';
+export { llwParameters, LLW_FACTORS } from './leaLeaskWolf';
