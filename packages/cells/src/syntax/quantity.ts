@@ -5,7 +5,8 @@
  *
  * Energies convert across the spectroscopic equivalences (temperature via k_B, wavenumber via h c, frequency via
  * h) with the constants of `@multiplet/physics/units`; every other conversion is mathjs's own.
- * A private mathjs instance adds the trade's field units Oe and G (1 Oe ≙ 1 G ≙ 1e-4 T in vacuum, common practice).
+ * A private mathjs instance adds the trade's units Oe and G (1 Oe ≙ 1 G ≙ 1e-4 T in vacuum) and emu (1e-3 A m²),
+ * common practice.
  */
 import { create, all, type Unit } from 'mathjs';
 import { KELVIN_IN_MEV, INVERSE_CM_IN_MEV, THZ_IN_MEV } from '@multiplet/physics/units';
@@ -13,10 +14,16 @@ import { KELVIN_IN_MEV, INVERSE_CM_IN_MEV, THZ_IN_MEV } from '@multiplet/physics
 const math = create(all, {});
 math.createUnit('Oe', { definition: '1e-4 T' }, { override: false });
 math.createUnit('G', { definition: '1e-4 T' }, { override: false });
+// Magnetometry's emu (a moment): 1 emu ≙ 1e-3 A m² (common practice). With Oe ≙ 1e-4 T, emu/mol/Oe converts among
+// CGS spellings; to SI m³/mol use EMU_PER_MOL_IN_M3_PER_MOL from physics/units (the μ0 factor is not a unit change).
+math.createUnit('emu', { definition: '1e-3 A m^2' }, { override: false });
 
 /** Why a quantity string was refused: a phrase that follows "expected ...". */
-export class QuantityProblem {
-  constructor(readonly expected: string) {}
+export class QuantityProblem extends Error {
+  constructor(readonly expected: string) {
+    super(`expected ${expected}`);
+    this.name = 'QuantityProblem';
+  }
 }
 
 /** Dimension vectors (mathjs order: mass, length, time, current, temperature, luminous, amount, angle, bit). */

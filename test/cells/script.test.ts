@@ -1,0 +1,61 @@
+import { describe, expect, it } from 'vitest';
+import { compile } from 'vega-lite';
+import { createCellSession, run, runOk, errorOf, SAMPLE_CELL } from './helpers';
+
+describe('script cells', () => {
+  it('runs TypeScript with top-level await, console streams and the last expression as the result', async () => {
+    const s = createCellSession();
+    await runOk(s, SAMPLE_CELL);
+    const r = await runOk(s, 'const ion: string = state.sample.ion;\nconsole.log("ion", ion);\nconsole.warn("careful");\nconst g = await Promise.resolve(physics.ions.getIon(ion).gJ);\ng * 3');
+    expect(r.outputs).toEqual([
+      { type: 'stream', name: 'stdout', text: 'ion Dy3+\n' },
+      { type: 'stream', name: 'stderr', text: 'careful\n' },
+    ]);
+    expect(r.data['text/plain']).toBe('4');
+  });
+
+  it('display() shows bundles, tables and text', async () => {
+    const s = createCellSession();
+    const spec = { $schema: 'https://vega.github.io/schema/vega-lite/v5.json', data: { values: [{ x: 1, y: 2 }] }, mark: 'point', encoding: { x: { field: 'x', type: 'quantitative' } } };
+    const r = await runOk(s, `display({ 'application/vnd.vegalite.v5+json': ${JSON.stringify(spec)} });\ndisplay([{ T: 2, C: 0.5 }, { T: 4, C: 1.9 }]);\ndisplay('plain');`);
+    const shown = r.outputs.filter((o) => o.type === 'display_data');
+    expect(shown).toHaveLength(3);
+    const [vl, table, text] = shown.map((o) => (o.type === 'display_data' ? o.data : {}));
+    compile(vl!['application/vnd.vegalite.v5+json'] as never);
+    expect(vl!['text/plain']).toBe('[application/vnd.vegalite.v5+json]');
+    expect(table!['text/html']).toContain('<th>T</th>');
+    expect(text).toEqual({ 'text/plain': 'plain' });
+    expect(r.outcome).toEqual({ status: 'ok' });
+  });
+
+  it('reports syntax and runtime errors at the cell line', async () => {
+    const s = createCellSession();
+    const syntax = errorOf(await run(s, 'const a = 1;\nconst b = (;\n'));
+    expect(syntax.ename).toBe('CellSyntaxError');
+    expect(syntax.evalue).toMatch(/^line 2, column 12: script: /);
+    const runtime = errorOf(await run(s, 'const x: number = 1;\n\nconst y = (null as any).foo;\n'));
+    expect(runtime.ename).toBe('ScriptError');
+    expect(runtime.evalue).toMatch(/^line 3, column 1: TypeError: Cannot read properties of null/);
+    const imports = errorOf(await run(s, 'import fs from "node:fs";\nfs'));
+    expect(imports.evalue).toMatch(/import\/export are not available/);
+  });
+
+  it('keeps the state read-only and randomness seeded', async () => {
+    const s = createCellSession();
+    await runOk(s, SAMPLE_CELL);
+    const before = s.state.serialize();
+    const frozen = errorOf(await run(s, '"use strict";\nstate.sample.ion = "Ho3+";'));
+    expect(frozen.evalue).toMatch(/read only|read-only|Cannot assign/);
+    expect(s.state.serialize()).toBe(before);
+    expect(errorOf(await run(s, 'Math.random()')).evalue).toMatch(/use physics.random.createRandom\(seed\)/);
+    const a = await runOk(s, 'physics.random.createRandom(7).next()');
+    const b = await runOk(s, 'physics.random.createRandom(7).next()');
+    expect(a.data['text/plain']).toBe(b.data['text/plain']);
+  });
+
+  it('variables do not leak between cells', async () => {
+    const s = createCellSession();
+    await runOk(s, 'const leaked = 5;');
+    expect(errorOf(await run(s, 'leaked')).evalue).toMatch(/ReferenceError: leaked is not defined/);
+  });
+});
