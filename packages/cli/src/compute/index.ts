@@ -8,4 +8,8 @@ export interface ComputeKind {
   run(input: Record<string, unknown>): unknown | Promise<unknown>;
 }
 
-export const COMPUTE_KINDS: Record<string, ComputeKind> = {};
+import { crystalField } from './crystalField';
+
+export const COMPUTE_KINDS: Record<string, ComputeKind> = {
+  'crystal-field': crystalField,
+};

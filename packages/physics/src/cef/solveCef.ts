@@ -172,6 +172,9 @@ export function solveCef(ion: Ion, parametersMeV: CefParameters, options: SolveC
   const groundEnergyMeV = values[0];
   const energiesMeV = Float64Array.from(values, (v) => v - groundEnergyMeV);
   const levels = groupLevels(energiesMeV, tolerance);
+  // Level energies are measured from the ground level's mean, so the ground level sits at exactly 0.
+  const groundLevelMeV = levels[0].energyMeV;
+  for (const level of levels) level.energyMeV -= groundLevelMeV;
   const jm: AngularMomentumMatrices = angularMomentumMatrices(J);
   for (const level of levels) if (level.degeneracy > 1) diagonaliseJzInside(vectors, level.stateIndices, jm.Jz);
   fixPhases(vectors);
