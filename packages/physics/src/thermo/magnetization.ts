@@ -1,0 +1,219 @@
+import { InputError } from '../errors';
+import { NO_TASK, type LongTask } from '../progress';
+import { inversionHalf, lebedevGrid, type SphereGrid } from '../quadrature';
+import { PreparedIon, thermalMoment, unitVector, type SingleIonInput } from './internal/singleIon';
+import { teslaPerMuB, totalMeanFieldMolPerEmu, type Demagnetization } from './internal/meanField';
+import { numberArray, temperatureArray } from './internal/validate';
+import { siteFrames, toLocal, type Rotation3, type SiteFrameName } from './siteFrames';
+
+export type { SingleIonInput } from './internal/singleIon';
+
+/** Powder-average settings: a fixed Lebedev–Laikov degree, or a relative tolerance reached by successive degrees. */
+export interface PowderOptions {
+  /** Use this Lebedev–Laikov degree (the smallest stored one ≥ it). */
+  degree?: number;
+  /** Otherwise: increase the degree along POWDER_DEGREE_SEQUENCE until max|ΔM| ≤ tolerance·max|M| per curve (default 1e-4). */
+  tolerance?: number;
+}
+
+export interface MagnetizationOptions {
+  temperaturesK: ArrayLike<number>;
+  fieldsT: ArrayLike<number>;
+  /** Field direction in the global (crystal) frame, or 'powder'. */
+  direction: readonly [number, number, number] | 'powder';
+  /** Site frames (default 'single'); see siteFrames. */
+  sites?: SiteFrameName | readonly Rotation3[];
+  powder?: PowderOptions;
+  /** Molecular-field constant λ in mol/emu per mole of ions (B_eff = B + λM); default 0. */
+  meanFieldMolPerEmu?: number;
+  /** Demagnetising correction (applied field → internal field); default none. */
+  demagnetization?: Demagnetization;
+  task?: LongTask;
+}
+
+export interface MagnetizationResult {
+  /** M along the field in μB per rare-earth ion: one array per temperature, one value per field. */
+  magnetizationMuB: Float64Array[];
+  temperaturesK: Float64Array;
+  fieldsT: Float64Array;
+  /** Powder only: the grid used (full-grid name and degree), the directions computed (inversion half), and the
+   *  last change between successive degrees relative to max|M| (NaN-free: 0 when a fixed degree was asked for). */
+  powder?: { grid: string; degree: number; directionsComputed: number; relativeChange: number; converged: boolean };
+  /** Number of Hamiltonians diagonalised. */
+  diagonalisations: number;
+}
+
+/** Lebedev–Laikov degrees tried, in order, when the powder average is chosen by tolerance (points roughly ×1.6). */
+export const POWDER_DEGREE_SEQUENCE: readonly number[] = [11, 17, 23, 29, 35, 41, 53, 65, 83, 101, 131];
+
+/**
+ * Magnetization M(B, T) of a rare-earth ion in its crystal field, in μB per ion, along the applied field.
+ *
+ * At each field the single-ion Hamiltonian H = H_CEF − g_J μB B·J (DEVELOPERS.md § Conventions) is diagonalised
+ * exactly and M = g_J Σ_k p_k ⟨k|B̂·J|k⟩ with Boltzmann populations p_k (the moment's component along the field;
+ * e.g. Jensen & Mackintosh, "Rare Earth Magnetism", ch. 1). With several site frames (e.g. the four ⟨111⟩ frames of
+ * the pyrochlore lattice) the field is rotated into each local frame, B_local = R_sᵀ B, and M is the site average.
+ * Powder: the spherical mean of M(B n̂) over a Lebedev–Laikov grid, computed on the inversion half of the grid since
+ * M(−B) = −M(B) (time reversal; H_CEF is even in J). Without a molecular field the powder mean is the same for any
+ * set of site frames (rotation invariance of the sphere), so a single site is used.
+ * Optional corrections (off by default): molecular field λ and demagnetisation, B_eff = B + (λ − 4πN/V_m) M,
+ * solved self-consistently along the field for each field, temperature and direction (mean-field approximation).
+ *
+ * Units: fields in T (the applied μ0H), temperatures in K (> 0), M in μB per rare-earth ion.
+ *
+ * @example magnetization({ J: 7.5, gJ: 4 / 3, parametersMeV: { B20: -0.05 } }, { temperaturesK: [2], fieldsT: [1, 5], direction: 'powder' })
+ * @throws InputError for T ≤ 0, an empty field list, an unknown direction, bad powder options or bad sites.
+ * See also: vanVleckSusceptibility, siteFrames, lebedevGrid, POWDER_DEGREE_SEQUENCE.
+ */
+export function magnetization(ion: SingleIonInput, options: MagnetizationOptions): MagnetizationResult {
+  if (options === null || typeof options !== 'object') throw new InputError('options', options, 'an object { temperaturesK, fieldsT, direction }');
+  const prepared = new PreparedIon(ion);
+  const temperatures = temperatureArray(options.temperaturesK);
+  const fields = numberArray(options.fieldsT, 'fieldsT', 'fields in T');
+  const frames = siteFrames(options.sites ?? 'single');
+  const lambda = teslaPerMuB(totalMeanFieldMolPerEmu(options.meanFieldMolPerEmu, options.demagnetization));
+  const task = options.task ?? NO_TASK;
+
+  if (options.direction !== 'powder') {
+    if (options.powder !== undefined) throw new InputError('powder', options.powder, 'no powder options unless direction is "powder"');
+    const n = unitVector(options.direction, 'direction');
+    const m = crystalCurve(prepared, frames, n, temperatures, fields, lambda, task);
+    return { magnetizationMuB: m, temperaturesK: temperatures, fieldsT: fields, diagonalisations: prepared.diagonalisations };
+  }
+
+  const powder = options.powder ?? {};
+  if (powder === null || typeof powder !== 'object') throw new InputError('powder', powder, 'an object { degree } or { tolerance }');
+  if (powder.degree !== undefined && powder.tolerance !== undefined) throw new InputError('powder', powder, 'either degree or tolerance, not both');
+  const effectiveFrames = lambda === 0 ? frames.slice(0, 1).map(() => IDENTITY) : frames;
+  const mean = (grid: SphereGrid) => powderCurve(prepared, effectiveFrames, inversionHalf(grid), temperatures, fields, lambda, task);
+
+  if (powder.degree !== undefined) {
+    const grid = lebedevGrid(powder.degree);
+    const m = mean(grid);
+    return {
+      magnetizationMuB: m, temperaturesK: temperatures, fieldsT: fields, diagonalisations: prepared.diagonalisations,
+      powder: { grid: grid.name, degree: grid.degree, directionsComputed: grid.count / 2, relativeChange: 0, converged: true },
+    };
+  }
+  const tolerance = powder.tolerance ?? 1e-4;
+  if (typeof tolerance !== 'number' || !(tolerance > 0) || !Number.isFinite(tolerance)) throw new InputError('powder.tolerance', tolerance, 'a relative tolerance > 0');
+  let previous: Float64Array[] | undefined;
+  let grid = lebedevGrid(POWDER_DEGREE_SEQUENCE[0]);
+  let current = mean(grid);
+  let change = Infinity;
+  let computed = grid.count / 2;
+  for (let k = 1; k < POWDER_DEGREE_SEQUENCE.length; k++) {
+    previous = current;
+    grid = lebedevGrid(POWDER_DEGREE_SEQUENCE[k]);
+    current = mean(grid);
+    computed += grid.count / 2;
+    change = relativeChange(previous, current);
+    if (change <= tolerance) break;
+  }
+  return {
+    magnetizationMuB: current, temperaturesK: temperatures, fieldsT: fields, diagonalisations: prepared.diagonalisations,
+    powder: { grid: grid.name, degree: grid.degree, directionsComputed: computed, relativeChange: change, converged: change <= tolerance },
+  };
+}
+
+const IDENTITY: Rotation3 = [[1, 0, 0], [0, 1, 0], [0, 0, 1]];
+
+/** max over curves of max|a − b| / max|b| (per temperature curve). */
+function relativeChange(a: Float64Array[], b: Float64Array[]): number {
+  let worst = 0;
+  for (let t = 0; t < a.length; t++) {
+    let scale = 0, diff = 0;
+    for (let f = 0; f < a[t].length; f++) {
+      scale = Math.max(scale, Math.abs(b[t][f]));
+      diff = Math.max(diff, Math.abs(a[t][f] - b[t][f]));
+    }
+    worst = Math.max(worst, scale > 0 ? diff / scale : diff);
+  }
+  return worst;
+}
+
+function powderCurve(
+  ion: PreparedIon, frames: readonly Rotation3[], half: SphereGrid, temperatures: Float64Array, fields: Float64Array, lambda: number, task: LongTask,
+): Float64Array[] {
+  const out = Array.from(temperatures, () => new Float64Array(fields.length));
+  for (let d = 0; d < half.count; d++) {
+    task.checkpoint();
+    const n: [number, number, number] = [half.directions[3 * d], half.directions[3 * d + 1], half.directions[3 * d + 2]];
+    const m = crystalCurve(ion, frames, n, temperatures, fields, lambda, task);
+    const w = half.weights[d];
+    for (let t = 0; t < temperatures.length; t++) for (let f = 0; f < fields.length; f++) out[t][f] += w * m[t][f];
+    task.report(d + 1, half.count, 'powder directions');
+  }
+  return out;
+}
+
+/** M along a global direction n for a crystal with the given site frames (site average), all T and B. */
+function crystalCurve(
+  ion: PreparedIon, frames: readonly Rotation3[], n: readonly number[], temperatures: Float64Array, fields: Float64Array, lambda: number, task: LongTask,
+): Float64Array[] {
+  const ops = frames.map((r) => ion.projection(toLocal(r, n)));
+  const out = Array.from(temperatures, () => new Float64Array(fields.length));
+  if (lambda === 0) {
+    for (let f = 0; f < fields.length; f++) {
+      for (const op of ops) {
+        const { energies, projections } = ion.levelsAlong(op, fields[f]);
+        for (let t = 0; t < temperatures.length; t++) out[t][f] += thermalMoment(ion.gJ, energies, projections, temperatures[t]) / ops.length;
+      }
+    }
+    return out;
+  }
+  const saturation = ion.gJ * ion.J;
+  for (let t = 0; t < temperatures.length; t++) {
+    const at = (bEff: number) => {
+      let m = 0;
+      for (const op of ops) {
+        const { energies, projections } = ion.levelsAlong(op, bEff);
+        m += thermalMoment(ion.gJ, energies, projections, temperatures[t]);
+      }
+      return m / ops.length;
+    };
+    for (let f = 0; f < fields.length; f++) {
+      task.checkpoint();
+      out[t][f] = selfConsistent(at, fields[f], lambda, Math.abs(saturation));
+    }
+  }
+  return out;
+}
+
+/**
+ * Solve M = f(B + λM) for M along the field. λ < 0 (antiferromagnetic or demagnetising): M − f(B + λM) increases
+ * monotonically with M (f is non-decreasing: ∂M/∂B = χ ≥ 0), one root, found by the Illinois variant of regula falsi
+ * on [−M_sat, M_sat] (Dowell & Jarratt, BIT 11, 168 (1971)). λ > 0 (ferromagnetic): iterate M ← f(B + λM) from
+ * saturation on the field's side, which converges monotonically to the largest (stable) solution.
+ */
+function selfConsistent(f: (bEff: number) => number, b: number, lambda: number, saturation: number): number {
+  const tolerance = 1e-12 * Math.max(1, saturation);
+  if (lambda < 0) {
+    const g = (m: number) => m - f(b + lambda * m);
+    let lo = -saturation - 1e-9, hi = saturation + 1e-9;
+    let glo = g(lo), ghi = g(hi);
+    let side = 0;
+    for (let iter = 0; iter < 200; iter++) {
+      const m = (lo * ghi - hi * glo) / (ghi - glo);
+      const gm = g(m);
+      if (Math.abs(gm) <= tolerance || hi - lo <= tolerance) return m;
+      if (gm > 0) {
+        hi = m; ghi = gm;
+        if (side === 1) glo /= 2;
+        side = 1;
+      } else {
+        lo = m; glo = gm;
+        if (side === -1) ghi /= 2;
+        side = -1;
+      }
+    }
+    return (lo + hi) / 2;
+  }
+  let m = b >= 0 ? saturation : -saturation;
+  for (let iter = 0; iter < 2000; iter++) {
+    const next = f(b + lambda * m);
+    if (Math.abs(next - m) <= tolerance) return next;
+    m = next;
+  }
+  return m;
+}

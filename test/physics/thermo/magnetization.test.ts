@@ -1,0 +1,109 @@
+import { describe, expect, it } from 'vitest';
+import { magnetization } from '@multiplet/physics/thermo/magnetization';
+import { vanVleckSusceptibility } from '@multiplet/physics/thermo/susceptibility';
+import { AVOGADRO_PER_MOL, BOHR_MAGNETON_J_PER_T, BOHR_MAGNETON_MEV_PER_T, BOLTZMANN_MEV_PER_K } from '@multiplet/physics/units';
+import { createTask } from '@multiplet/physics/progress';
+import { InputError, CancelledError } from '@multiplet/physics/errors';
+
+/** Brillouin function B_J(x) (Kittel, Introduction to Solid State Physics, ch. 14; Blundell, Magnetism in Condensed Matter, eq. 2.44). */
+function brillouin(J: number, x: number): number {
+  const a = (2 * J + 1) / (2 * J), b = 1 / (2 * J);
+  const coth = (y: number) => 1 / Math.tanh(y);
+  return a * coth(a * x) - b * coth(b * x);
+}
+
+const dyLike = { J: 7.5, gJ: 4 / 3 };
+// A strong axial field: ground doublet |±15/2⟩ with the next level 3·14·|B20| = 42 000 meV away, i.e. a pure Ising
+// moment m = g_J J = 10 μB (the transverse Van Vleck response adds ≈ 6e-6 of m along the field at 3 T).
+const ising = { ...dyLike, parametersMeV: { B20: -1000 } };
+
+describe('magnetization', () => {
+  it('without a crystal field equals g_J J B_J(x), x = g_J μB J B/k_BT, to 1e-10 (Brillouin; Kittel ch. 14)', () => {
+    const ion = { J: 3.5, gJ: 2, parametersMeV: {} };
+    const temperatures = [0.7, 4, 50];
+    const fields = [0.05, 0.5, 3, 9];
+    for (const direction of [[0, 0, 1], [1, 2, -0.5]] as const) {
+      const r = magnetization(ion, { temperaturesK: temperatures, fieldsT: fields, direction: [...direction] as [number, number, number] });
+      temperatures.forEach((t, i) =>
+        fields.forEach((b, j) => {
+          const x = (ion.gJ * BOHR_MAGNETON_MEV_PER_T * ion.J * b) / (BOLTZMANN_MEV_PER_K * t);
+          expect(Math.abs(r.magnetizationMuB[i][j] - ion.gJ * ion.J * brillouin(ion.J, x))).toBeLessThan(1e-10);
+        }),
+      );
+    }
+  });
+
+  it('saturated Ising moment on the four ⟨111⟩ axes: m/√3 along [001], m/2 along [111], m/√6 along [110] (common practice)', () => {
+    const m = 10;
+    const cases: Array<[[number, number, number], number]> = [
+      [[0, 0, 1], m / Math.sqrt(3)],
+      [[1, 1, 1], m / 2],
+      [[1, 1, 0], m / Math.sqrt(6)],
+    ];
+    for (const [direction, expected] of cases) {
+      const r = magnetization(ising, { temperaturesK: [0.5], fieldsT: [3], direction, sites: 'pyrochlore' });
+      expect(r.magnetizationMuB[0][0] / expected).toBeCloseTo(1, 4);
+    }
+  });
+
+  it('powder average of a saturated Ising moment is m/2 (common practice), for one site and for the four pyrochlore frames', () => {
+    for (const sites of ['single', 'pyrochlore'] as const) {
+      const r = magnetization(ising, { temperaturesK: [0.5], fieldsT: [20], direction: 'powder', sites, powder: { degree: 131 } });
+      expect(Math.abs(r.magnetizationMuB[0][0] / 10 - 0.5)).toBeLessThan(2e-4);
+    }
+  });
+
+  it('powder by tolerance stops when successive degrees agree, and uses half of each grid (M(−B) = −M(B))', () => {
+    const ion = { ...dyLike, parametersMeV: { B20: -0.3, B40: 0.002, B43: 0.01 } };
+    const r = magnetization(ion, { temperaturesK: [5], fieldsT: [0.5, 2, 7], direction: 'powder', powder: { tolerance: 1e-5 } });
+    expect(r.powder!.converged).toBe(true);
+    expect(r.powder!.relativeChange).toBeLessThanOrEqual(1e-5);
+    const reference = magnetization(ion, { temperaturesK: [5], fieldsT: [0.5, 2, 7], direction: 'powder', powder: { degree: 131 } });
+    expect(reference.diagonalisations).toBe((5810 / 2) * 3);
+    r.magnetizationMuB[0].forEach((v, j) => expect(Math.abs(v / reference.magnetizationMuB[0][j] - 1)).toBeLessThan(1e-4));
+  });
+
+  it('is odd in the field and its low-field slope equals the Van Vleck susceptibility', () => {
+    const ion = { ...dyLike, parametersMeV: { B20: -0.3, B40: 0.002, B43: 0.01, B66: 1e-5 } };
+    const direction: [number, number, number] = [0.3, -0.2, 0.9];
+    const r = magnetization(ion, { temperaturesK: [8], fieldsT: [-1e-4, 1e-4], direction });
+    expect(r.magnetizationMuB[0][0] / -r.magnetizationMuB[0][1]).toBeCloseTo(1, 8);
+    const chi = vanVleckSusceptibility(ion, { temperaturesK: [8], direction }).chiEmuPerMol[0];
+    // χ (emu/mol) = M[μB] N_A μB[erg/G] / (B[T] × 10⁴ G/T)
+    const fromM = (r.magnetizationMuB[0][1] * AVOGADRO_PER_MOL * BOHR_MAGNETON_J_PER_T * 1e3) / (1e-4 * 1e4);
+    expect(fromM / chi).toBeCloseTo(1, 6);
+  });
+
+  it('molecular field: M solves M = M₀(B + λ′M), and the slope matches χ with 1/χ = 1/χ₀ − λ', () => {
+    const ion = { J: 3.5, gJ: 2, parametersMeV: {} };
+    const lambda = -0.4; // mol/emu, antiferromagnetic
+    const toEmu = AVOGADRO_PER_MOL * BOHR_MAGNETON_J_PER_T * 1e3;
+    const withField = magnetization(ion, { temperaturesK: [3], fieldsT: [2], direction: [0, 0, 1], meanFieldMolPerEmu: lambda }).magnetizationMuB[0][0];
+    const bEff = 2 + lambda * toEmu * 1e-4 * withField;
+    const bare = magnetization(ion, { temperaturesK: [3], fieldsT: [bEff], direction: [0, 0, 1] }).magnetizationMuB[0][0];
+    expect(withField).toBeCloseTo(bare, 10);
+    const small = magnetization(ion, { temperaturesK: [3], fieldsT: [1e-4], direction: [0, 0, 1], meanFieldMolPerEmu: lambda }).magnetizationMuB[0][0];
+    const chi = vanVleckSusceptibility(ion, { temperaturesK: [3], direction: [0, 0, 1], meanFieldMolPerEmu: lambda }).chiEmuPerMol[0];
+    expect((small * toEmu) / 1 / chi).toBeCloseTo(1, 6);
+  });
+
+  it('reports progress and can be cancelled during a powder average (LongTask)', () => {
+    const calls: number[] = [];
+    const task = createTask((done) => calls.push(done));
+    magnetization(ising, { temperaturesK: [2], fieldsT: [1], direction: 'powder', powder: { degree: 11 }, task });
+    expect(calls.at(-1)).toBe(25);
+    const cancelled = createTask();
+    cancelled.cancel();
+    expect(() => magnetization(ising, { temperaturesK: [2], fieldsT: [1], direction: 'powder', task: cancelled })).toThrow(CancelledError);
+  });
+
+  it('rejects T ≤ 0, an empty field list, an unknown direction and conflicting powder options', () => {
+    const base = { temperaturesK: [1], fieldsT: [1], direction: [0, 0, 1] as [number, number, number] };
+    expect(() => magnetization(ising, { ...base, temperaturesK: [0] })).toThrow(InputError);
+    expect(() => magnetization(ising, { ...base, fieldsT: [] })).toThrow(InputError);
+    expect(() => magnetization(ising, { ...base, direction: 'c-axis' as never })).toThrow(InputError);
+    expect(() => magnetization(ising, { ...base, direction: [0, 0, 0] })).toThrow(InputError);
+    expect(() => magnetization(ising, { ...base, direction: 'powder', powder: { degree: 11, tolerance: 1e-3 } })).toThrow(InputError);
+    expect(() => magnetization(ising, { ...base, sites: 'kagome' as never })).toThrow(InputError);
+  });
+});
