@@ -17,7 +17,7 @@ import type { ComplexMatrix } from '../linalg/complexMatrix';
 import { BOLTZMANN_MEV_PER_K } from '../units';
 import { transitionStrengths } from './transitionStrengths';
 
-export interface CefLevel {
+export interface PopulatedLevel {
   /** Energy above the ground state, meV (mean over the level's states). */
   readonly energyMeV: number;
   readonly degeneracy: number;
@@ -44,7 +44,7 @@ export interface CefTransitionsResult {
   /** Eigenvalues with the ground state at 0, meV (ascending). */
   readonly energiesMeV: Float64Array;
   readonly eigenvectors: ComplexMatrix;
-  readonly levels: readonly CefLevel[];
+  readonly levels: readonly PopulatedLevel[];
   /** Transitions between different levels whose initial level has a population above `minimumPopulation`. */
   readonly transitions: readonly CefTransition[];
   /** Σ_a populationPerState(a) × (strength a → a): the magnetic quasi-elastic weight at E = 0. */
@@ -54,10 +54,109 @@ export interface CefTransitionsResult {
 export interface CefTransitionsOptions {
   /** Single-crystal Q direction in the CEF frame; default: powder average. */
   readonly qDirection?: readonly [number, number, number];
-  /** Eigenvalues closer than this are one level. Default 1e-6 meV. */
+  /** Eigenvalues closer than this are one level. Default 1e-4 meV (as solveCef). */
   readonly degeneracyToleranceMeV?: number;
   /** Initial levels with a smaller population per state are skipped. Default 1e-9. */
   readonly minimumPopulation?: number;
+}
+
+/** Temperature-independent part: levels and Σ-over-degenerate-states strengths between every pair of levels. */
+export interface LevelStrengths {
+  readonly ion: Ion;
+  readonly energiesMeV: Float64Array;
+  readonly eigenvectors: ComplexMatrix;
+  /** Degenerate groups of state indices, ascending energy. */
+  readonly groups: readonly (readonly number[])[];
+  readonly levelEnergiesMeV: Float64Array;
+  /** L×L, element [b * L + a]: Σ_{i∈a, j∈b} strength(i → j). */
+  readonly pairStrengths: Float64Array;
+}
+
+/**
+ * Diagonalise H_CEF once and sum the dipole strengths over degenerate states for every pair of levels.
+ * @example const ls = levelStrengths(getIon('Er3+'), B); thermalTransitions(ls, 10)
+ */
+export function levelStrengths(
+  ion: Ion,
+  parametersMeV: CefParameters,
+  options: { qDirection?: readonly [number, number, number]; degeneracyToleranceMeV?: number } = {},
+): LevelStrengths {
+  const h = cefHamiltonian(ion.J, parametersMeV);
+  const { values, vectors } = hermitianEigen(h);
+  const n = values.length;
+  const ground = values[0];
+  const energiesMeV = Float64Array.from(values, (v) => v - ground);
+  const tolerance = options.degeneracyToleranceMeV ?? 1e-4;
+  const groups: number[][] = [];
+  for (let k = 0; k < n; k++) {
+    const last = groups[groups.length - 1];
+    if (last && energiesMeV[k] - energiesMeV[last[0]] <= tolerance) last.push(k);
+    else groups.push([k]);
+  }
+  const levelEnergiesMeV = Float64Array.from(groups, (g) => g.reduce((s, k) => s + energiesMeV[k], 0) / g.length);
+  const { strengths } = transitionStrengths(ion.J, vectors, { qDirection: options.qDirection });
+  const L = groups.length;
+  const pairStrengths = new Float64Array(L * L);
+  for (let a = 0; a < L; a++)
+    for (let b = 0; b < L; b++) {
+      let s = 0;
+      for (const i of groups[a]) for (const j of groups[b]) s += strengths[j * n + i];
+      pairStrengths[b * L + a] = s;
+    }
+  return { ion, energiesMeV, eigenvectors: vectors, groups, levelEnergiesMeV, pairStrengths };
+}
+
+/** Boltzmann population per state of each level at T (K); T = 0 puts everything in the ground level. */
+export function levelPopulations(levels: LevelStrengths, temperatureK: number): Float64Array {
+  const L = levels.groups.length;
+  const perState = new Float64Array(L);
+  if (temperatureK === 0) {
+    perState[0] = 1 / levels.groups[0].length;
+    return perState;
+  }
+  let z = 0;
+  for (let a = 0; a < L; a++) {
+    perState[a] = Math.exp(-levels.levelEnergiesMeV[a] / (BOLTZMANN_MEV_PER_K * temperatureK));
+    z += perState[a] * levels.groups[a].length;
+  }
+  for (let a = 0; a < L; a++) perState[a] /= z;
+  return perState;
+}
+
+/** Populations and transitions at T from precomputed level strengths. */
+export function thermalTransitions(levels: LevelStrengths, temperatureK: number, minimumPopulation = 1e-9): CefTransitionsResult {
+  if (typeof temperatureK !== 'number' || !Number.isFinite(temperatureK) || temperatureK < 0)
+    throw new InputError('temperatureK', temperatureK, 'a finite temperature ≥ 0 K');
+  const L = levels.groups.length;
+  const population = levelPopulations(levels, temperatureK);
+  const levelList: PopulatedLevel[] = levels.groups.map((g, a) => ({
+    energyMeV: levels.levelEnergiesMeV[a],
+    degeneracy: g.length,
+    stateIndices: g,
+    populationPerState: population[a],
+  }));
+  const transitions: CefTransition[] = [];
+  let elasticWeight = 0;
+  for (let a = 0; a < L; a++) {
+    if (population[a] < minimumPopulation) continue;
+    for (let b = 0; b < L; b++) {
+      const strength = levels.pairStrengths[b * L + a];
+      if (a === b) {
+        elasticWeight += population[a] * strength;
+        continue;
+      }
+      transitions.push({
+        fromLevel: a,
+        toLevel: b,
+        fromMeV: levels.levelEnergiesMeV[a],
+        toMeV: levels.levelEnergiesMeV[b],
+        energyMeV: levels.levelEnergiesMeV[b] - levels.levelEnergiesMeV[a],
+        strength,
+        weight: population[a] * strength,
+      });
+    }
+  }
+  return { ion: levels.ion, energiesMeV: levels.energiesMeV, eigenvectors: levels.eigenvectors, levels: levelList, transitions, elasticWeight };
 }
 
 /** Levels, populations and level-to-level neutron transition strengths of an ion in a crystal field at T (K). */
@@ -70,54 +169,6 @@ export function cefTransitions(
   const ion = typeof ionOrName === 'string' ? getIon(ionOrName) : ionOrName;
   if (typeof temperatureK !== 'number' || !Number.isFinite(temperatureK) || temperatureK < 0)
     throw new InputError('temperatureK', temperatureK, 'a finite temperature ≥ 0 K');
-  const h = cefHamiltonian(ion.J, parametersMeV);
-  const { values, vectors } = hermitianEigen(h);
-  const n = values.length;
-  const ground = values[0];
-  const energiesMeV = Float64Array.from(values, (v) => v - ground);
-  const tolerance = options.degeneracyToleranceMeV ?? 1e-6;
-
-  const groups: number[][] = [];
-  for (let k = 0; k < n; k++) {
-    const last = groups[groups.length - 1];
-    if (last && energiesMeV[k] - energiesMeV[last[0]] <= tolerance) last.push(k);
-    else groups.push([k]);
-  }
-  // Boltzmann weights per state (T = 0: the ground level only, shared equally).
-  const weights = new Float64Array(n);
-  if (temperatureK === 0) for (const k of groups[0]) weights[k] = 1;
-  else for (let k = 0; k < n; k++) weights[k] = Math.exp(-energiesMeV[k] / (BOLTZMANN_MEV_PER_K * temperatureK));
-  const z = weights.reduce((s, w) => s + w, 0);
-  const levels: CefLevel[] = groups.map((g) => ({
-    energyMeV: g.reduce((s, k) => s + energiesMeV[k], 0) / g.length,
-    degeneracy: g.length,
-    stateIndices: g,
-    populationPerState: g.reduce((s, k) => s + weights[k], 0) / g.length / z,
-  }));
-
-  const { strengths } = transitionStrengths(ion.J, vectors, { qDirection: options.qDirection });
-  const minimumPopulation = options.minimumPopulation ?? 1e-9;
-  const transitions: CefTransition[] = [];
-  let elasticWeight = 0;
-  levels.forEach((from, a) => {
-    if (from.populationPerState < minimumPopulation) return;
-    levels.forEach((to, b) => {
-      let strength = 0;
-      for (const i of from.stateIndices) for (const j of to.stateIndices) strength += strengths[j * n + i];
-      if (a === b) {
-        elasticWeight += from.populationPerState * strength;
-        return;
-      }
-      transitions.push({
-        fromLevel: a,
-        toLevel: b,
-        fromMeV: from.energyMeV,
-        toMeV: to.energyMeV,
-        energyMeV: to.energyMeV - from.energyMeV,
-        strength,
-        weight: from.populationPerState * strength,
-      });
-    });
-  });
-  return { ion, energiesMeV, eigenvectors: vectors, levels, transitions, elasticWeight };
+  const levels = levelStrengths(ion, parametersMeV, options);
+  return thermalTransitions(levels, temperatureK, options.minimumPopulation);
 }

@@ -6,7 +6,13 @@
 export { magneticFormFactor, radialFormFactors } from './magneticFormFactor';
 export { FORM_FACTOR_TABLE, type FormFactorCoefficients, type FormFactorEntry } from './formFactorTable';
 export { transitionStrengths, type TransitionStrengths } from './transitionStrengths';
-export { cefTransitions, type CefLevel, type CefTransition, type CefTransitionsResult, type CefTransitionsOptions } from './cefTransitions';
+export {
+  cefTransitions,
+  levelStrengths,
+  levelPopulations,
+  thermalTransitions,
+  type LevelStrengths,
+  type PopulatedLevel, type CefTransition, type CefTransitionsResult, type CefTransitionsOptions } from './cefTransitions';
 export { lineShape, LINE_SHAPES, type LineShapeKind } from './lineShape';
 export {
   neutronSpectrum,

@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import { fitCef, type PeakObservation } from '@multiplet/physics/fit/fitCef';
+import { cefTransitions } from '@multiplet/physics/neutron/cefTransitions';
+import { InputError } from '@multiplet/physics/errors';
+
+// A D3d (z ∥ 3-fold) crystal field for Er3+; values chosen for the tests (levels 0, 3.7, 12.8, 25.7, … meV at these B).
+const TRUTH = { B20: -0.04, B40: 1.2e-3, B43: -1.1e-2, B60: 8e-6, B63: -7e-5, B66: 9e-5 };
+const START = { B20: -0.03, B40: 1e-3, B43: -0.009, B60: 1e-5, B63: -5e-5, B66: 1e-4 };
+
+/** Noise-free peaks: the five strongest energy-loss lines at 5 K and at 60 K, with intensities. */
+function syntheticPeaks(): PeakObservation[] {
+  const peaks: PeakObservation[] = [];
+  for (const T of [5, 60]) {
+    const t = cefTransitions('Er3+', TRUTH, T);
+    const lines = t.transitions.filter((x) => x.energyMeV > 0).sort((a, b) => b.weight - a.weight).slice(0, 5);
+    for (const v of lines) peaks.push({ energyMeV: v.energyMeV, errorMeV: 0.1, intensity: v.weight, intensityError: 0.05 * v.weight + 0.01, temperatureK: T });
+  }
+  return peaks;
+}
+
+describe('fitCef on peak lists', () => {
+  it('recovers the parameters from a perturbed start (local fit, automatic assignment)', () => {
+    const report = fitCef({ ion: 'Er3+', symmetry: 'D3d', start: START, peaks: syntheticPeaks() });
+    expect(report.best.chi2).toBeLessThan(1e-8);
+    for (const [key, value] of Object.entries(TRUTH)) expect(report.best.parametersMeV[key]).toBeCloseTo(value, 8);
+    expect(report.best.degreesOfFreedom).toBe(20 - 6 - 2);
+    expect(report.best.correlation.length).toBe(6);
+    expect(report.best.peakAssignments.every((a) => !a.unassigned)).toBe(true);
+  });
+
+  it('global search from 12 random starts is reproducible with a seed and reports the true minimum first', () => {
+    const spec = { ion: 'Er3+', symmetry: 'D3d', start: START, peaks: syntheticPeaks() };
+    const a = fitCef(spec, { starts: 12, seed: 4 });
+    const b = fitCef(spec, { starts: 12, seed: 4 });
+    expect(a.best.parametersMeV).toEqual(b.best.parametersMeV);
+    expect(a.hamiltonianEvaluations).toBe(b.hamiltonianEvaluations);
+    expect(a.startsRun).toBe(13);
+    expect(a.best.chi2).toBeLessThan(1e-8);
+    expect(a.distinctMinimaFound).toBeGreaterThanOrEqual(a.minima.length);
+  });
+
+  it('honours a pinned assignment and fixed parameters', () => {
+    const peaks = syntheticPeaks();
+    const t = cefTransitions('Er3+', TRUTH, 5);
+    const first = peaks.findIndex((p) => p.temperatureK === 5 && Math.abs(p.energyMeV - t.levels[1].energyMeV) < 1e-9);
+    expect(first).toBeGreaterThanOrEqual(0);
+    const pinned = peaks.map((p, i) => (i === first ? { ...p, transition: { fromLevel: 0, toLevel: 1 } } : p));
+    const report = fitCef({ ion: 'Er3+', symmetry: 'D3d', start: { ...START, B66: TRUTH.B66 }, free: ['B20', 'B40', 'B43', 'B60', 'B63'], peaks: pinned });
+    expect(report.best.parametersMeV.B66).toBe(TRUTH.B66);
+    expect(report.best.peakAssignments[first]).toMatchObject({ fromLevel: 0, toLevel: 1 });
+    expect(report.best.chi2).toBeLessThan(1e-8);
+    expect(Object.keys(report.best.errorsMeV)).toEqual(['B20', 'B40', 'B43', 'B60', 'B63']);
+  });
+
+  it('gives clear InputErrors for bad input', () => {
+    const peaks = syntheticPeaks();
+    const base = { ion: 'Er3+', symmetry: 'D3d', start: START, peaks };
+    expect(() => fitCef({ ...base, peaks: [{ ...peaks[0], errorMeV: 0 }] })).toThrow(/peaks\[0\]\.errorMeV/);
+    expect(() => fitCef({ ...base, peaks: [{ ...peaks[0], errorMeV: -0.1 }] })).toThrow(InputError);
+    expect(() => fitCef({ ...base, peaks: [{ ...peaks[0], intensityError: 0 }] })).toThrow(/intensityError/);
+    expect(() => fitCef({ ...base, start: { ...START, B22: 0.01 } })).toThrow(/B22/);
+    expect(() => fitCef({ ...base, free: ['B20', 'B41'] })).toThrow(/free\[1\]/);
+    expect(() => fitCef({ ...base, bounds: { B20: [0, 1] } })).toThrow(/bounds\.B20/);
+    expect(() => fitCef({ ...base, peaks: [] })).toThrow(/no data/);
+    expect(() => fitCef({ ...base, ion: 'Ce3+', start: { B20: 0.1 }, free: ['B20', 'B60'] })).toThrow(/free\[1\]/);
+  });
+});
