@@ -1,5 +1,6 @@
 // Builds packages/lab in three steps, each skipped when its inputs did not change (content hashes in
 // page-dist/.build-stamps.json), so `npx multiplet lab` and the browser tests build once:
+//   0. templates: the cells package's kind schemas -> src/generated/kindTemplates.json (scripts/templates.mjs)
 //   1. tsc: src/ -> lib/ (the extension as JavaScript, what @jupyterlab/builder reads)
 //   2. @jupyterlab/builder: lib/, schema/, style/ -> labextension/ (the prebuilt federated extension users install)
 //   3. esbuild: page/ -> page-dist/multiplet/ (the standalone page) + a copy of labextension/ it loads at run time
@@ -9,6 +10,7 @@ import { cpSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statS
 import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import * as esbuild from 'esbuild';
+import { writeTemplates } from './templates.mjs';
 
 const lab = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const root = resolve(lab, '../..');
@@ -53,10 +55,22 @@ async function step(name, inputs, outputs, run) {
 }
 
 const node = process.execPath;
+
+/** Run a build tool; its output is shown only when it fails (the builder prints pages of license warnings). */
+function run(args) {
+  try {
+    execFileSync(node, args, { cwd: lab, stdio: ['ignore', 'pipe', 'pipe'], maxBuffer: 64 * 1024 * 1024 });
+  } catch (error) {
+    process.stderr.write(String(error.stdout ?? '') + String(error.stderr ?? ''));
+    throw new Error(`lab build: ${args.slice(0, 2).join(' ')} failed`);
+  }
+}
 const bin = (pkg, path) => join(root, 'node_modules', pkg, path);
 
+await step('templates', [join(root, 'packages/cells/src'), join(lab, 'scripts/templates.mjs')], [join(lab, 'src/generated/kindTemplates.json')], writeTemplates);
+
 await step('tsc', [join(lab, 'src'), join(lab, 'tsconfig.json')], [join(lab, 'lib/index.js')], () => {
-  execFileSync(node, [bin('typescript', 'bin/tsc'), '-p', join(lab, 'tsconfig.json')], { stdio: 'inherit', cwd: lab });
+  run([bin('typescript', 'bin/tsc'), '-p', join(lab, 'tsconfig.json')]);
 });
 
 await step(
@@ -64,10 +78,7 @@ await step(
   [join(lab, 'lib'), join(lab, 'schema'), join(lab, 'style'), join(lab, 'core-meta'), join(lab, 'package.json')],
   [join(lab, 'labextension/package.json')],
   () => {
-    execFileSync(node, [bin('@jupyterlab/builder', 'lib/build-labextension.js'), '--core-path', join(lab, 'core-meta'), lab], {
-      stdio: quiet ? ['ignore', 'ignore', 'inherit'] : 'inherit',
-      cwd: lab,
-    });
+    run([bin('@jupyterlab/builder', 'lib/build-labextension.js'), '--core-path', join(lab, 'core-meta'), lab]);
   },
 );
 

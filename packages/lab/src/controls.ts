@@ -1,7 +1,7 @@
 /**
  * Live controls of a result: one labelled slider plus number field per free input of the cell (the B_n^m of a
  * crystal-field cell, a temperature, a field). Moving one asks the kernel, through a `ControlChannel`, to rerun the
- * owning cell and its dependants; the cell text changes only when the user asks ("Write into cell").
+ * owning cell and its dependants; the notebook cell text changes only when the user asks ("Write into cell").
  */
 import { Widget } from '@lumino/widgets';
 import type { ResultControl, ResultPayload } from './protocol';
@@ -10,17 +10,8 @@ import type { ResultControl, ResultPayload } from './protocol';
 export interface ControlChannel {
   /** Send a new value; resolves when the kernel has accepted it. `origin` is a node inside the output. */
   setControl(origin: HTMLElement, result: ResultPayload, control: ResultControl, value: number): Promise<void>;
-  /** Put the value into the cell source; returns false when the cell or the field could not be found. */
-  writeIntoCell(origin: HTMLElement, result: ResultPayload, control: ResultControl, value: number): boolean;
-}
-
-/** Slider range when the kernel gives none: around the value, never empty. */
-export function controlRange(control: ResultControl): { min: number; max: number; step: number } {
-  const span = Math.max(Math.abs(control.value), 1);
-  const min = control.min ?? control.value - span;
-  const max = control.max ?? control.value + span;
-  const step = control.step ?? (max - min) / 200;
-  return { min, max, step };
+  /** Put the cell text the kernel ran last for `result` (with the control values in it) into the notebook cell. */
+  writeIntoCell(origin: HTMLElement, result: ResultPayload): Promise<void>;
 }
 
 /** Short display of a number that keeps significant digits and drops trailing zeros. */
@@ -51,7 +42,7 @@ export class ControlsView extends Widget {
     const sameShape =
       this._result !== null &&
       this._result.controls.length === result.controls.length &&
-      this._result.controls.every((c, i) => c.path === result.controls[i].path);
+      this._result.controls.every((c, i) => c.field === result.controls[i].field);
     this._result = result;
     this.setHidden(result.controls.length === 0);
     if (!sameShape) {
@@ -59,18 +50,25 @@ export class ControlsView extends Widget {
       return;
     }
     for (const control of result.controls) {
-      const row = this._rowFor(control.path);
+      const row = this._rowFor(control.field);
       if (!row) continue;
       row.classList.remove('jp-mod-pending');
-      if (this._pending.has(control.path)) continue;
+      if (this._pending.has(control.field)) continue;
+      // The kernel re-centres the range on the new value; keep the same input element so focus stays.
+      const slider = row.querySelector<HTMLInputElement>('.jp-Multiplet-controlSlider');
+      if (slider) Object.assign(slider, { min: String(control.min), max: String(control.max), step: String(control.step) });
       this._showValue(row, control, control.value, true);
     }
   }
 
   handleEvent(event: Event): void {
     const target = event.target as HTMLElement;
+    if (event.type === 'click' && target.closest('.jp-Multiplet-writeBack') && this._result) {
+      this._writeBack(this._result);
+      return;
+    }
     const row = target.closest<HTMLElement>('.jp-Multiplet-control');
-    const control = row ? this._controlFor(row.dataset.path ?? '') : undefined;
+    const control = row ? this._controlFor(row.dataset.field ?? '') : undefined;
     if (!row || !control || !this._result) return;
     if (event.type === 'input' && target instanceof HTMLInputElement && target.type === 'range') {
       this._showValue(row, control, Number(target.value), false);
@@ -79,12 +77,6 @@ export class ControlsView extends Widget {
       if (!Number.isFinite(value) || target.value.trim() === '') return;
       this._showValue(row, control, value, target.type !== 'range');
       this._scheduleSend(row, control, value);
-    } else if (event.type === 'click' && target.closest('.jp-Multiplet-writeBack')) {
-      const value = Number(row.querySelector<HTMLInputElement>('.jp-Multiplet-controlNumber')?.value);
-      const written = this._channel.writeIntoCell(this.node, this._result, control, value);
-      row.classList.toggle('jp-mod-writeFailed', !written);
-      const status = row.querySelector('.jp-Multiplet-controlStatus');
-      if (status) status.textContent = written ? 'written into the cell' : 'field not found in the cell text';
     }
   }
 
@@ -107,14 +99,14 @@ export class ControlsView extends Widget {
   }
 
   private _scheduleSend(row: HTMLElement, control: ResultControl, value: number): void {
-    const previous = this._pending.get(control.path);
+    const previous = this._pending.get(control.field);
     if (previous !== undefined) window.clearTimeout(previous);
     row.classList.add('jp-mod-pending');
     const result = this._result;
     this._pending.set(
-      control.path,
+      control.field,
       window.setTimeout(() => {
-        this._pending.delete(control.path);
+        this._pending.delete(control.field);
         if (!result) return;
         const status = row.querySelector('.jp-Multiplet-controlStatus');
         if (status) status.textContent = '';
@@ -126,19 +118,33 @@ export class ControlsView extends Widget {
     );
   }
 
+  private _writeBack(result: ResultPayload): void {
+    const status = this.node.querySelector('.jp-Multiplet-writeBackStatus');
+    this._channel.writeIntoCell(this.node, result).then(
+      () => {
+        this.node.classList.remove('jp-mod-writeFailed');
+        if (status) status.textContent = 'The cell text now holds these values.';
+      },
+      (reason: unknown) => {
+        this.node.classList.add('jp-mod-writeFailed');
+        if (status) status.textContent = reason instanceof Error ? reason.message : String(reason);
+      },
+    );
+  }
+
   private _build(result: ResultPayload): void {
     this.node.textContent = '';
     for (const control of result.controls) {
       const id = `jp-Multiplet-control-${nextControlId++}`;
-      const { min, max, step } = controlRange(control);
+      const { min, max, step } = control;
       const row = document.createElement('div');
       row.className = 'jp-Multiplet-control';
-      row.dataset.path = control.path;
+      row.dataset.field = control.field;
 
       const label = document.createElement('label');
       label.className = 'jp-Multiplet-controlLabel';
       label.htmlFor = id;
-      label.textContent = (control.label ?? control.path) + (control.unit ? ` (${control.unit})` : '');
+      label.textContent = control.label + (control.unit ? ` (${control.unit})` : '');
 
       const slider = document.createElement('input');
       slider.type = 'range';
@@ -152,22 +158,28 @@ export class ControlsView extends Widget {
       number.type = 'number';
       number.className = 'jp-Multiplet-controlNumber';
       number.step = 'any';
-      number.setAttribute('aria-label', `${control.label ?? control.path} value${control.unit ? ` in ${control.unit}` : ''}`);
-
-      const writeBack = document.createElement('button');
-      writeBack.type = 'button';
-      writeBack.className = 'jp-Multiplet-writeBack jp-mod-styled';
-      writeBack.textContent = 'Write into cell';
-      writeBack.title = `Replace ${control.path} in the cell text with the current value`;
+      number.setAttribute('aria-label', `${control.label} value${control.unit ? ` in ${control.unit}` : ''}`);
 
       const status = document.createElement('span');
       status.className = 'jp-Multiplet-controlStatus';
       status.setAttribute('aria-live', 'polite');
 
-      row.append(label, slider, number, writeBack, status);
+      row.append(label, slider, number, status);
       this.node.appendChild(row);
       this._showValue(row, control, control.value, true);
     }
+    const footer = document.createElement('div');
+    footer.className = 'jp-Multiplet-controlsFooter';
+    const writeBack = document.createElement('button');
+    writeBack.type = 'button';
+    writeBack.className = 'jp-Multiplet-writeBack jp-mod-styled';
+    writeBack.textContent = 'Write values into cell';
+    writeBack.title = `Replace the text of the ${result.name} cell with the text the kernel last ran (the values above)`;
+    const status = document.createElement('span');
+    status.className = 'jp-Multiplet-writeBackStatus';
+    status.setAttribute('aria-live', 'polite');
+    footer.append(writeBack, status);
+    this.node.appendChild(footer);
   }
 
   private _showValue(row: HTMLElement, control: ResultControl, value: number, moveSlider: boolean): void {
@@ -178,12 +190,12 @@ export class ControlsView extends Widget {
     if (number && document.activeElement !== number) number.value = formatNumber(value);
   }
 
-  private _rowFor(path: string): HTMLElement | null {
-    return Array.from(this.node.querySelectorAll<HTMLElement>('.jp-Multiplet-control')).find((r) => r.dataset.path === path) ?? null;
+  private _rowFor(field: string): HTMLElement | null {
+    return Array.from(this.node.querySelectorAll<HTMLElement>('.jp-Multiplet-control')).find((r) => r.dataset.field === field) ?? null;
   }
 
-  private _controlFor(path: string): ResultControl | undefined {
-    return this._result?.controls.find((c) => c.path === path);
+  private _controlFor(field: string): ResultControl | undefined {
+    return this._result?.controls.find((c) => c.field === field);
   }
 
   private _channel: ControlChannel;

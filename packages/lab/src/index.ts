@@ -11,7 +11,7 @@ import { NotebookLinks } from './links';
 import { createResultRendererFactory } from './renderer';
 import { addStateCommands } from './stateCommands';
 import { SampleStatePanel } from './statePanel';
-import { fetchTemplates, insertTemplate } from './templates';
+import { CELL_TEMPLATES, insertTemplate } from './templates';
 import { INotebookLinks } from './tokens';
 
 const PALETTE_CATEGORY = 'Multiplet';
@@ -55,39 +55,27 @@ const statePanelPlugin: JupyterFrontEndPlugin<void> = {
   },
 };
 
-/** One `multiplet:insert-<kind>` command per cell kind the kernel offers a template for. */
+/** One `multiplet:insert-<kind>` command per cell kind, inserting its documented template. */
 const templatesPlugin: JupyterFrontEndPlugin<void> = {
   id: '@multiplet/lab:templates',
   description: 'Commands that insert a documented template of each Multiplet cell kind.',
   autoStart: true,
-  requires: [INotebookLinks],
+  requires: [INotebookTracker],
   optional: [ICommandPalette],
-  activate: (app: JupyterFrontEnd, links: NotebookLinks, palette: ICommandPalette | null) => {
-    const texts = new Map<string, string>();
-    const register = async (panel = links.tracker.currentWidget) => {
-      if (!panel) return;
-      await panel.sessionContext.ready;
-      for (const template of await fetchTemplates(links.linkFor(panel))) {
-        const id = CommandIDs.insertPrefix + template.kind;
-        texts.set(template.kind, template.text);
-        if (app.commands.hasCommand(id)) continue;
-        app.commands.addCommand(id, {
-          label: `Insert ${template.kind} Cell`,
-          caption: template.summary,
-          isEnabled: () => links.tracker.currentWidget !== null,
-          execute: () => {
-            const current = links.tracker.currentWidget;
-            const text = texts.get(template.kind);
-            if (current && text !== undefined) insertTemplate(current, text);
-          },
-        });
-        palette?.addItem({ command: id, category: PALETTE_CATEGORY });
-      }
-    };
-    links.tracker.widgetAdded.connect((_, panel) => {
-      panel.sessionContext.kernelChanged.connect(() => void register(panel).catch(() => undefined));
-      void register(panel).catch(() => undefined);
-    });
+  activate: (app: JupyterFrontEnd, tracker: INotebookTracker, palette: ICommandPalette | null) => {
+    for (const template of CELL_TEMPLATES) {
+      const id = CommandIDs.insertPrefix + template.kind;
+      app.commands.addCommand(id, {
+        label: `Insert ${template.kind} Cell`,
+        caption: `Insert a documented ${template.kind} cell below the active cell: ${template.summary}`,
+        isEnabled: () => tracker.currentWidget !== null,
+        execute: () => {
+          const panel = tracker.currentWidget;
+          if (panel) insertTemplate(panel, template.text);
+        },
+      });
+      palette?.addItem({ command: id, category: PALETTE_CATEGORY });
+    }
   },
 };
 

@@ -1,38 +1,49 @@
 /**
  * The kernel side of the front end: for each open notebook, the comms on `multiplet.controls` and
- * `multiplet.state`, the latest sample-state snapshot, and requests (set a control, save or load the state file,
- * fetch cell templates). Widgets read this model; they never talk to the kernel themselves.
+ * `multiplet.state` (message shapes: packages/cells/README.md, "Comm protocol"), the latest sample-state snapshot,
+ * and requests (set a control, write back, snapshot, rerun stale, save, load). Widgets read this model; they never
+ * talk to the kernel themselves.
  */
 import type { ISessionContext } from '@jupyterlab/apputils';
 import type { INotebookTracker, NotebookPanel } from '@jupyterlab/notebook';
 import type { Kernel, KernelMessage } from '@jupyterlab/services';
-import { PromiseDelegate, UUID } from '@lumino/coreutils';
+import { PromiseDelegate, type JSONObject } from '@lumino/coreutils';
 import type { IDisposable } from '@lumino/disposable';
 import { Signal, type ISignal } from '@lumino/signaling';
-import { setFieldValue } from './cellText';
 import type { ControlChannel } from './controls';
-import { formatNumber } from './controls';
-import {
-  CONTROLS_COMM_TARGET,
-  parseSnapshot,
-  STATE_COMM_TARGET,
-  type ResultControl,
-  type ResultPayload,
-  type StateSnapshot,
-} from './protocol';
+import { CONTROLS_COMM_TARGET, parseSnapshot, STATE_COMM_TARGET, type ResultControl, type ResultPayload, type StateSnapshot } from './protocol';
 
-/** How long a request on a comm may wait for its answer. */
-const REQUEST_TIMEOUT_MS = 60_000;
+/** How long a request on a comm may wait for its answer (a rerun of dependants can take a while). */
+const REQUEST_TIMEOUT_MS = 120_000;
+
+type Reply = Record<string, unknown>;
+
+/** A request waiting for the kernel's reply; replies on one comm come in request order. */
+interface PendingRequest {
+  expects: string[];
+  answer: PromiseDelegate<Reply>;
+}
+
+/** The cell text `[kind] name` header of a notebook cell, or null for script and markdown cells. */
+export function cellHeader(source: string): { kind: string; name: string } | null {
+  const first = source.split('\n').find((line) => line.trim() !== '');
+  const match = first ? /^\s*\[([a-z][a-z0-9-]*)\]\s+([A-Za-z_][A-Za-z0-9_]*)\s*$/.exec(first) : null;
+  return match ? { kind: match[1], name: match[2] } : null;
+}
+
+/** Index of the notebook cell whose header names `result`, or -1. */
+export function findResultCell(panel: NotebookPanel, result: string): number {
+  return panel.content.widgets.findIndex((cell) => cell.model.type === 'code' && cellHeader(cell.model.sharedModel.getSource())?.name === result);
+}
 
 /** The comms of one kernel session and what came over them. */
 export class SessionLink implements IDisposable {
   constructor(sessionContext: ISessionContext) {
     this._sessionContext = sessionContext;
     sessionContext.kernelChanged.connect(this._onKernelChanged, this);
-    this._onKernelChanged();
   }
 
-  /** A new snapshot of the sample state arrived (null: the kernel went away). */
+  /** A new snapshot of the sample state arrived (null: the kernel changed or restarted). */
   get stateChanged(): ISignal<this, StateSnapshot | null> {
     return this._stateChanged;
   }
@@ -45,47 +56,62 @@ export class SessionLink implements IDisposable {
     return this._disposed;
   }
 
-  /** Ask the kernel to rerun the cell that made `result` with a new control value (and its dependants). */
-  async setControl(result: ResultPayload, control: ResultControl, value: number): Promise<void> {
-    await this._request(CONTROLS_COMM_TARGET, {
-      type: 'set',
-      result: result.name,
-      cellId: result.cellId,
-      path: control.path,
-      value,
-    });
+  /** Rerun the cell of `result` with a new control value, then its dependants; the kernel updates their displays. */
+  async setControl(result: string, control: ResultControl, value: number): Promise<Reply> {
+    const reply = await this._request(CONTROLS_COMM_TARGET, { action: 'set', result, field: control.field, value }, ['updated']);
+    const failed = (Array.isArray(reply.results) ? reply.results : []).map((r) => r as Reply).filter((r) => r.status === 'error');
+    if (failed.length > 0) throw new Error(failed.map((r) => `${String(r.name)}: ${String(r.error ?? 'failed')}`).join('; '));
+    return reply;
+  }
+
+  /** The cell text the kernel last ran for `result` (control values included). */
+  async writebackSource(result: string): Promise<string> {
+    const reply = await this._request(CONTROLS_COMM_TARGET, { action: 'writeback', result }, ['writeback']);
+    if (typeof reply.source !== 'string') throw new Error(`the kernel sent no cell text for ${result}`);
+    return reply.source;
   }
 
   /** Ask for a fresh snapshot of the sample state. */
   async refreshState(): Promise<StateSnapshot | null> {
-    await this._request(STATE_COMM_TARGET, { type: 'snapshot' });
+    await this._request(STATE_COMM_TARGET, { action: 'snapshot' }, ['snapshot']);
     return this._snapshot;
   }
 
-  /** Any request on the state comm (save, load, templates); resolves with the kernel's answer. */
-  requestState(message: Record<string, unknown>): Promise<Record<string, unknown>> {
-    return this._request(STATE_COMM_TARGET, message);
+  /** Rerun every stale result in the kernel (displays update in place); returns the kernel's per-result report. */
+  async rerunStale(): Promise<Reply[]> {
+    const reply = await this._request(STATE_COMM_TARGET, { action: 'rerun-stale' }, ['rerun-stale']);
+    await this.refreshState();
+    return (Array.isArray(reply.results) ? reply.results : []) as Reply[];
+  }
+
+  /** Save the state file (path relative to the notebook); resolves with the absolute path the kernel wrote. */
+  async saveState(path: string): Promise<string> {
+    const reply = await this._request(STATE_COMM_TARGET, { action: 'save', path }, ['saved']);
+    return String(reply.path ?? path);
+  }
+
+  async loadState(path: string): Promise<void> {
+    await this._request(STATE_COMM_TARGET, { action: 'load', path }, ['loaded']);
+    await this.refreshState();
   }
 
   dispose(): void {
     if (this._disposed) return;
     this._disposed = true;
-    this._closeComms();
+    this._closeComms('the notebook was closed');
     Signal.clearData(this);
   }
 
   private _onKernelChanged(): void {
-    this._closeComms();
+    this._closeComms('the kernel changed');
     this._snapshot = null;
     this._stateChanged.emit(null);
   }
 
-  private _closeComms(): void {
-    for (const comm of this._comms.values()) {
-      if (!comm.isDisposed) comm.dispose();
-    }
+  private _closeComms(reason: string): void {
+    for (const comm of this._comms.values()) if (!comm.isDisposed) comm.dispose();
     this._comms.clear();
-    for (const pending of this._pending.values()) pending.reject(new Error('the kernel connection changed'));
+    for (const queue of this._pending.values()) for (const request of queue) request.answer.reject(new Error(reason));
     this._pending.clear();
   }
 
@@ -96,51 +122,59 @@ export class SessionLink implements IDisposable {
     const kernel = this._sessionContext.session?.kernel;
     if (!kernel) throw new Error('no kernel is running for this notebook');
     const comm = kernel.createComm(target);
-    comm.onMsg = (msg: KernelMessage.ICommMsgMsg) => this._onMessage(msg.content.data as Record<string, unknown>);
+    comm.onMsg = (msg: KernelMessage.ICommMsgMsg) => this._onMessage(target, msg.content.data as Reply);
     comm.onClose = () => {
       this._comms.delete(target);
+      for (const request of this._pending.get(target) ?? []) request.answer.reject(new Error(`the kernel closed ${target}`));
+      this._pending.delete(target);
     };
     this._comms.set(target, comm);
     await comm.open({}).done;
     return comm;
   }
 
-  private async _request(target: string, message: Record<string, unknown>): Promise<Record<string, unknown>> {
+  private async _request(target: string, message: Reply, expects: string[]): Promise<Reply> {
     const comm = await this._comm(target);
-    const requestId = UUID.uuid4();
-    const answer = new PromiseDelegate<Record<string, unknown>>();
-    this._pending.set(requestId, answer);
-    const timer = window.setTimeout(() => {
-      if (this._pending.delete(requestId)) answer.reject(new Error(`no answer from the kernel to "${String(message.type)}"`));
-    }, REQUEST_TIMEOUT_MS);
+    const request: PendingRequest = { expects, answer: new PromiseDelegate<Reply>() };
+    const queue = this._pending.get(target) ?? [];
+    queue.push(request);
+    this._pending.set(target, queue);
+    const timer = window.setTimeout(() => this._settle(target, request, new Error(`no answer from the kernel to "${String(message.action)}"`)), REQUEST_TIMEOUT_MS);
     try {
-      await comm.send({ ...message, requestId }).done;
-      return await answer.promise;
+      await comm.send(message as JSONObject).done;
+      return await request.answer.promise;
     } finally {
       window.clearTimeout(timer);
-      this._pending.delete(requestId);
     }
   }
 
-  private _onMessage(data: Record<string, unknown>): void {
-    if (data.state !== undefined) {
-      this._snapshot = parseSnapshot(data.state);
+  private _settle(target: string, request: PendingRequest, outcome: Reply | Error): void {
+    const queue = this._pending.get(target) ?? [];
+    const index = queue.indexOf(request);
+    if (index < 0) return;
+    queue.splice(index, 1);
+    if (outcome instanceof Error) request.answer.reject(outcome);
+    else request.answer.resolve(outcome);
+  }
+
+  private _onMessage(target: string, data: Reply): void {
+    const action = String(data.action ?? '');
+    if (action === 'snapshot') {
+      this._snapshot = parseSnapshot(data);
       this._stateChanged.emit(this._snapshot);
     }
-    const requestId = typeof data.requestId === 'string' ? data.requestId : undefined;
-    const pending = requestId ? this._pending.get(requestId) : undefined;
-    if (!pending || !requestId) return;
-    this._pending.delete(requestId);
-    if (data.type === 'error' || typeof data.error === 'string') {
-      pending.reject(new Error(String(data.error ?? data.message ?? 'the kernel refused the request')));
-    } else {
-      pending.resolve(data);
+    const queue = this._pending.get(target) ?? [];
+    if (action === 'error') {
+      if (queue[0]) this._settle(target, queue[0], new Error(String(data.message ?? 'the kernel refused the request')));
+      return;
     }
+    const waiting = queue.find((request) => request.expects.includes(action));
+    if (waiting) this._settle(target, waiting, data);
   }
 
   private _sessionContext: ISessionContext;
   private _comms = new Map<string, Kernel.IComm>();
-  private _pending = new Map<string, PromiseDelegate<Record<string, unknown>>>();
+  private _pending = new Map<string, PendingRequest[]>();
   private _snapshot: StateSnapshot | null = null;
   private _stateChanged = new Signal<this, StateSnapshot | null>(this);
   private _disposed = false;
@@ -179,18 +213,19 @@ export class NotebookLinks implements ControlChannel {
   async setControl(origin: HTMLElement, result: ResultPayload, control: ResultControl, value: number): Promise<void> {
     const panel = this.panelContaining(origin);
     if (!panel) throw new Error('this output is not inside an open notebook');
-    await this.linkFor(panel).setControl(result, control, value);
+    await this.linkFor(panel).setControl(result.name, control, value);
   }
 
-  writeIntoCell(origin: HTMLElement, _result: ResultPayload, control: ResultControl, value: number): boolean {
+  async writeIntoCell(origin: HTMLElement, result: ResultPayload): Promise<void> {
     const panel = this.panelContaining(origin);
-    const cell = panel?.content.widgets.find((c) => c.node.contains(origin));
-    if (!cell) return false;
-    const source = cell.model.sharedModel.getSource();
-    const edited = setFieldValue(source, control.path, formatNumber(value));
-    if (edited === null) return false;
-    cell.model.sharedModel.setSource(edited);
-    return true;
+    if (!panel) throw new Error('this output is not inside an open notebook');
+    const source = await this.linkFor(panel).writebackSource(result.name);
+    // The cell holding this output; if it moved or was re-headed, the cell whose header names the result.
+    const holder = panel.content.widgets.find((c) => c.node.contains(origin));
+    const index = holder ? panel.content.widgets.indexOf(holder) : findResultCell(panel, result.name);
+    const cell = index >= 0 ? panel.content.widgets[index] : undefined;
+    if (!cell) throw new Error(`no cell of this notebook makes ${result.name}`);
+    cell.model.sharedModel.setSource(source);
   }
 
   private _tracker: INotebookTracker;

@@ -9,69 +9,58 @@ export const RESULT_MIME_TYPE = 'application/vnd.multiplet.result+json';
 /** Comm target for live controls: the front end sends new control values, the kernel reruns cells. */
 export const CONTROLS_COMM_TARGET = 'multiplet.controls';
 
-/** Comm target for the sample state: snapshots from the kernel, save/load/template requests from the front end. */
+/** Comm target for the sample state: snapshots from the kernel; snapshot, rerun-stale, save and load requests. */
 export const STATE_COMM_TARGET = 'multiplet.state';
 
-/** One column of a result table; `unit` is shown in the header. */
-export interface TableColumn {
-  name: string;
-  unit?: string;
-}
+/** The vega-lite v5 MIME type the kernel puts beside the result (JupyterLab 4 renders v5 natively). */
+export const VEGALITE_MIME_TYPE = 'application/vnd.vegalite.v5+json';
 
-export interface ResultTable {
-  title?: string;
-  columns: TableColumn[];
-  rows: unknown[][];
-}
-
-export interface ResultPlot {
-  title?: string;
-  /** A vega-lite v5 specification. */
-  spec: Record<string, unknown>;
-  /** What the plot shows, for the test suite and screen readers ("levels", "magnetization", …). */
-  role?: string;
-}
-
-/** A free input of a cell the user can move without editing the text. */
+/** A free input of a cell the user can move without editing the text (values in `unit`). */
 export interface ResultControl {
-  /** Field path in the cell body, e.g. "B20" or "parameters.B20". */
-  path: string;
-  label?: string;
-  unit?: string;
+  /** Field path in the cell body, e.g. "B.B20". */
+  field: string;
+  label: string;
+  unit: string;
   value: number;
-  min?: number;
-  max?: number;
-  step?: number;
+  min: number;
+  max: number;
+  step: number;
 }
 
+/** What the renderer shows of one output bundle. */
 export interface ResultPayload {
+  version: number;
   kind: string;
   name: string;
-  cellId?: string;
-  summary?: string;
-  tables: ResultTable[];
-  plots: ResultPlot[];
-  controls: ResultControl[];
   stale: boolean;
+  controls: ResultControl[];
+  /** `text/html` of the bundle: tables with units (only text is taken over, see renderer.ts). */
+  html: string;
+  /** `text/plain` of the bundle. */
+  text: string;
+  /** The vega-lite v5 plot of the bundle, if the kind draws one. */
+  vegaLite: Record<string, unknown> | null;
 }
 
 /** One named result in the sample state. */
 export interface StateResultEntry {
   name: string;
   kind: string;
-  cellId?: string;
-  executionCount?: number;
+  role: string;
   stale: boolean;
-  dependsOn: string[];
+  reads: string[];
+  executionCount: number | null;
 }
 
 export interface StateDataset {
   name: string;
-  description: string;
+  rows: number;
+  columns: { name: string; unit: string }[];
 }
 
 export interface StateSnapshot {
-  compound: Record<string, unknown> | null;
+  /** The sample (`name` plus the sample cell's result), or null before a sample cell ran. */
+  sample: Record<string, unknown> | null;
   datasets: StateDataset[];
   results: StateResultEntry[];
 }
@@ -84,74 +73,72 @@ function asArray(value: unknown): unknown[] {
   return Array.isArray(value) ? value : [];
 }
 
-function optionalString(value: unknown): string | undefined {
-  return typeof value === 'string' && value !== '' ? value : undefined;
-}
-
-function optionalNumber(value: unknown): number | undefined {
+function finite(value: unknown): number | undefined {
   return typeof value === 'number' && Number.isFinite(value) ? value : undefined;
 }
 
-/** Read a result payload as the kernel sent it; unknown fields are ignored, missing lists become empty. */
-export function parseResult(raw: unknown): ResultPayload {
-  const data = asRecord(raw);
-  const tables: ResultTable[] = asArray(data.tables).map((t) => {
-    const table = asRecord(t);
-    return {
-      title: optionalString(table.title),
-      columns: asArray(table.columns).map((c) =>
-        typeof c === 'string' ? { name: c } : { name: String(asRecord(c).name ?? ''), unit: optionalString(asRecord(c).unit) },
-      ),
-      rows: asArray(table.rows).map((r) => asArray(r)),
-    };
-  });
-  const plots: ResultPlot[] = asArray(data.plots)
-    .map((p) => asRecord(p))
-    .filter((p) => Object.keys(asRecord(p.spec)).length > 0)
-    .map((p) => ({ title: optionalString(p.title), role: optionalString(p.role), spec: asRecord(p.spec) }));
-  const controls: ResultControl[] = asArray(data.controls)
-    .map((c) => asRecord(c))
-    .filter((c) => typeof (c.path ?? c.name) === 'string' && optionalNumber(c.value) !== undefined)
-    .map((c) => ({
-      path: String(c.path ?? c.name),
-      label: optionalString(c.label),
-      unit: optionalString(c.unit),
-      value: c.value as number,
-      min: optionalNumber(c.min),
-      max: optionalNumber(c.max),
-      step: optionalNumber(c.step),
-    }));
+function text(value: unknown): string {
+  if (typeof value === 'string') return value;
+  if (Array.isArray(value)) return value.join('');
+  return '';
+}
+
+/** Read an output bundle whose preferred type is `RESULT_MIME_TYPE`; unknown fields are ignored. */
+export function parseResult(bundle: Record<string, unknown>): ResultPayload {
+  const data = asRecord(bundle[RESULT_MIME_TYPE]);
+  const controls: ResultControl[] = [];
+  for (const item of asArray(data.controls)) {
+    const c = asRecord(item);
+    const value = finite(c.value);
+    if (typeof c.field !== 'string' || value === undefined) continue;
+    const span = Math.max(Math.abs(value), 1);
+    const min = finite(c.min) ?? value - span;
+    const max = finite(c.max) ?? value + span;
+    controls.push({
+      field: c.field,
+      label: typeof c.label === 'string' ? c.label : c.field,
+      unit: typeof c.unit === 'string' ? c.unit : '',
+      value,
+      min,
+      max,
+      step: finite(c.step) ?? (max - min) / 200,
+    });
+  }
+  const plot = asRecord(bundle[VEGALITE_MIME_TYPE]);
   return {
+    version: finite(data.version) ?? 1,
     kind: String(data.kind ?? ''),
     name: String(data.name ?? ''),
-    cellId: optionalString(data.cellId),
-    summary: optionalString(data.summary),
-    tables,
-    plots,
-    controls,
     stale: data.stale === true,
+    controls,
+    html: text(bundle['text/html']),
+    text: text(bundle['text/plain']),
+    vegaLite: Object.keys(plot).length > 0 ? plot : null,
   };
 }
 
-/** Read a state snapshot sent on the state comm. */
+/** Read a `snapshot` message of the state comm. */
 export function parseSnapshot(raw: unknown): StateSnapshot {
   const data = asRecord(raw);
-  const compound = data.compound === null || data.compound === undefined ? null : asRecord(data.compound);
   return {
-    compound,
+    sample: data.sample === null || data.sample === undefined ? null : asRecord(data.sample),
     datasets: asArray(data.datasets).map((d) => {
       const ds = asRecord(d);
-      return { name: String(ds.name ?? ''), description: String(ds.description ?? '') };
+      return {
+        name: String(ds.name ?? ''),
+        rows: finite(ds.rows) ?? 0,
+        columns: asArray(ds.columns).map((c) => ({ name: String(asRecord(c).name ?? ''), unit: String(asRecord(c).unit ?? '') })),
+      };
     }),
     results: asArray(data.results).map((r) => {
       const entry = asRecord(r);
       return {
         name: String(entry.name ?? ''),
         kind: String(entry.kind ?? ''),
-        cellId: optionalString(entry.cellId),
-        executionCount: optionalNumber(entry.executionCount),
+        role: String(entry.role ?? ''),
         stale: entry.stale === true,
-        dependsOn: asArray(entry.dependsOn).map(String),
+        reads: asArray(entry.reads).map(String),
+        executionCount: finite(entry.executionCount) ?? null,
       };
     }),
   };

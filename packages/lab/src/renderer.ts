@@ -1,11 +1,12 @@
 /**
  * The renderer of `application/vnd.multiplet.result+json`: a typed cell's result as a header (kind, name, stale
- * mark), live controls, tables with units and vega-lite plots. Follows the JupyterLab light/dark theme.
+ * mark), live controls, the tables with units of the bundle's `text/html` and its vega-lite v5 plot. Follows the
+ * JupyterLab light/dark theme.
  */
 import type { IRenderMime } from '@jupyterlab/rendermime-interfaces';
 import { Panel, Widget } from '@lumino/widgets';
-import { ControlsView, formatNumber, type ControlChannel } from './controls';
-import { parseResult, RESULT_MIME_TYPE, type ResultPayload, type ResultTable } from './protocol';
+import { ControlsView, type ControlChannel } from './controls';
+import { parseResult, RESULT_MIME_TYPE, type ResultPayload } from './protocol';
 
 type EmbedResult = { finalize(): void; view: { runAsync(): Promise<unknown> } };
 type EmbedFunction = (element: HTMLElement, spec: Record<string, unknown>, options: Record<string, unknown>) => Promise<EmbedResult>;
@@ -31,21 +32,20 @@ export class ResultRenderer extends Panel implements IRenderMime.IRenderer {
   }
 
   async renderModel(model: IRenderMime.IMimeModel): Promise<void> {
-    const result = parseResult(model.data[this._mimeType]);
+    const result = parseResult(model.data as Record<string, unknown>);
     this._result = result;
     this.node.dataset.kind = result.kind;
     this.node.dataset.resultName = result.name;
     this.node.classList.toggle('jp-mod-stale', result.stale);
-    this._renderHeader(result);
     this._controls.showResult(result);
-    await this._renderBody(result);
+    await this._render(result);
   }
 
   protected override onAfterAttach(msg: Parameters<Panel['onAfterAttach']>[0]): void {
     super.onAfterAttach(msg);
     this._themeObserver = new MutationObserver(() => {
       const dark = isDarkTheme();
-      if (dark !== this._renderedDark && this._result) void this._renderBody(this._result);
+      if (dark !== this._renderedDark && this._result) void this._render(this._result);
     });
     this._themeObserver.observe(document.body, { attributes: true, attributeFilter: ['data-jp-theme-light'] });
   }
@@ -78,50 +78,56 @@ export class ResultRenderer extends Panel implements IRenderMime.IRenderer {
       stale.textContent = 'stale: an input changed, rerun to refresh';
       node.append(stale);
     }
-    if (result.summary) {
-      const summary = document.createElement('div');
-      summary.className = 'jp-Multiplet-summary';
-      summary.textContent = result.summary;
-      node.append(summary);
-    }
   }
 
-  private async _renderBody(result: ResultPayload): Promise<void> {
+  private async _render(result: ResultPayload): Promise<void> {
+    this._renderHeader(result);
     const generation = ++this._generation;
     this._finalizeViews();
     const dark = isDarkTheme();
     this._renderedDark = dark;
     const body = this._body.node;
     body.textContent = '';
-    for (const table of result.tables) body.appendChild(Private.renderTable(table));
-    if (result.plots.length === 0) return;
-    const embed = await Private.loadEmbed();
-    for (const plot of result.plots) {
-      if (generation !== this._generation || this.isDisposed) return;
-      const figure = document.createElement('figure');
-      figure.className = 'jp-Multiplet-plot';
-      if (plot.role) figure.dataset.role = plot.role;
-      const target = document.createElement('div');
-      figure.appendChild(target);
-      if (plot.title) {
-        const caption = document.createElement('figcaption');
-        caption.textContent = plot.title;
-        figure.appendChild(caption);
-      }
-      body.appendChild(figure);
-      const view = await embed(target, plot.spec, {
-        actions: false,
-        renderer: 'svg',
-        theme: dark ? 'dark' : undefined,
-        config: { background: 'transparent' },
-      });
-      if (generation !== this._generation || this.isDisposed) {
-        view.finalize();
-        return;
-      }
-      this._views.push(view);
-      figure.dataset.rendered = 'true';
+    const { paragraphs, tables } = Private.readHtml(result.html);
+    for (const paragraph of paragraphs) {
+      const summary = document.createElement('p');
+      summary.className = 'jp-Multiplet-summary';
+      summary.textContent = paragraph;
+      this._header.node.appendChild(summary);
     }
+    const tablesBox = document.createElement('div');
+    tablesBox.className = 'jp-Multiplet-tables';
+    tablesBox.append(...tables);
+    if (!result.vegaLite) {
+      body.appendChild(tablesBox);
+      return;
+    }
+    const figure = document.createElement('figure');
+    figure.className = 'jp-Multiplet-plot';
+    figure.dataset.kind = result.kind;
+    const target = document.createElement('div');
+    figure.appendChild(target);
+    const description = result.vegaLite.description;
+    if (typeof description === 'string') {
+      const caption = document.createElement('figcaption');
+      caption.textContent = description;
+      figure.appendChild(caption);
+    }
+    body.append(figure, tablesBox);
+    const embed = await Private.loadEmbed();
+    if (generation !== this._generation || this.isDisposed) return;
+    const view = await embed(target, result.vegaLite, {
+      actions: false,
+      renderer: 'svg',
+      theme: dark ? 'dark' : undefined,
+      config: { background: 'transparent' },
+    });
+    if (generation !== this._generation || this.isDisposed) {
+      view.finalize();
+      return;
+    }
+    this._views.push(view);
+    figure.dataset.rendered = 'true';
   }
 
   private _finalizeViews(): void {
@@ -159,36 +165,37 @@ namespace Private {
     return embedPromise;
   }
 
-  export function renderTable(table: ResultTable): HTMLElement {
-    const element = document.createElement('table');
-    element.className = 'jp-Multiplet-table';
-    if (table.title) element.createCaption().textContent = table.title;
-    const headRow = element.createTHead().insertRow();
-    for (const column of table.columns) {
-      const cell = document.createElement('th');
-      cell.scope = 'col';
-      cell.textContent = column.name;
-      if (column.unit) {
-        const unit = document.createElement('span');
-        unit.className = 'jp-Multiplet-unit';
-        unit.textContent = ` (${column.unit})`;
-        cell.appendChild(unit);
-      }
-      headRow.appendChild(cell);
-    }
-    const body = element.createTBody();
-    for (const row of table.rows) {
-      const tr = body.insertRow();
-      for (const value of row) {
-        const cell = tr.insertCell();
-        if (typeof value === 'number') {
-          cell.textContent = formatNumber(value);
-          cell.className = 'jp-Multiplet-number';
-        } else {
-          cell.textContent = value === null || value === undefined ? '' : String(value);
+  /**
+   * The kernel's HTML, reduced to text: paragraphs and tables rebuilt cell by cell from their text, so nothing of
+   * the markup (attributes, scripts, styles) reaches the page. Numeric cells are right-aligned.
+   */
+  export function readHtml(html: string): { paragraphs: string[]; tables: HTMLTableElement[] } {
+    const parsed = new DOMParser().parseFromString(html, 'text/html');
+    const paragraphs = Array.from(parsed.querySelectorAll('p'))
+      .filter((p) => !p.closest('table'))
+      .map((p) => (p.textContent ?? '').trim())
+      .filter((t) => t !== '');
+    const tables = Array.from(parsed.querySelectorAll('table')).map((source) => {
+      const table = document.createElement('table');
+      table.className = 'jp-Multiplet-table';
+      const caption = source.querySelector('caption')?.textContent?.trim();
+      if (caption) table.createCaption().textContent = caption;
+      const head = table.createTHead();
+      const body = table.createTBody();
+      for (const sourceRow of Array.from(source.querySelectorAll('tr'))) {
+        const inHead = sourceRow.closest('thead') !== null;
+        const row = (inHead ? head : body).insertRow();
+        for (const sourceCell of Array.from(sourceRow.querySelectorAll('th, td'))) {
+          const cell = document.createElement(sourceCell.tagName === 'TH' ? 'th' : 'td');
+          const content = (sourceCell.textContent ?? '').trim();
+          cell.textContent = content;
+          if (cell.tagName === 'TH' && inHead) cell.setAttribute('scope', 'col');
+          if (cell.tagName === 'TD' && /^[-+−]?(\d|\.\d)[\d.,eE+−-]*(\s\S+)?$/.test(content)) cell.classList.add('jp-Multiplet-number');
+          row.appendChild(cell);
         }
       }
-    }
-    return element;
+      return table;
+    });
+    return { paragraphs, tables };
   }
 }

@@ -1,31 +1,12 @@
 /** The sample-state commands: rerun the stale cells, save and load the state file, refresh the panel. */
 import { InputDialog, showErrorMessage } from '@jupyterlab/apputils';
-import { NotebookActions, type NotebookPanel } from '@jupyterlab/notebook';
+import type { NotebookPanel } from '@jupyterlab/notebook';
 import type { CommandRegistry } from '@lumino/commands';
 import { CommandIDs } from './commandIds';
 import type { NotebookLinks } from './links';
-import { findResultCell } from './statePanel';
 
 /** The state file name offered by save and load (relative to the notebook's directory, where the kernel runs). */
 export const DEFAULT_STATE_FILE = 'sample-state.json';
-
-/** Rerun, in notebook order, the cells whose results are stale; returns how many cells ran. */
-export async function rerunStaleCells(links: NotebookLinks, panel: NotebookPanel): Promise<number> {
-  const link = links.linkFor(panel);
-  const snapshot = link.snapshot ?? (await link.refreshState());
-  const stale = snapshot?.results.filter((r) => r.stale) ?? [];
-  const indices = [...new Set(stale.map((r) => findResultCell(panel, r.name, r.cellId)?.index).filter((i): i is number => i !== undefined))];
-  indices.sort((a, b) => a - b);
-  const notebook = panel.content;
-  for (const index of indices) {
-    notebook.deselectAll();
-    notebook.activeCellIndex = index;
-    const ok = await NotebookActions.run(notebook, panel.sessionContext);
-    if (!ok) break;
-  }
-  await link.refreshState();
-  return indices.length;
-}
 
 export function addStateCommands(commands: CommandRegistry, links: NotebookLinks): void {
   const current = (): NotebookPanel | null => links.tracker.currentWidget;
@@ -34,11 +15,14 @@ export function addStateCommands(commands: CommandRegistry, links: NotebookLinks
 
   commands.addCommand(CommandIDs.rerunStale, {
     label: 'Rerun Stale Multiplet Cells',
-    caption: 'Run again, in order, every cell whose result is marked stale in the sample state',
+    caption: 'Have the kernel run again, in dependency order, every result marked stale; their outputs update in place',
     isEnabled,
     execute: async () => {
       const panel = current();
-      if (panel) await rerunStaleCells(links, panel).catch(report('Rerun stale cells'));
+      if (!panel) return;
+      const reports = await links.linkFor(panel).rerunStale().catch(report('Rerun stale cells'));
+      const failed = (Array.isArray(reports) ? reports : []).filter((r) => r.status === 'error');
+      if (failed.length > 0) await showErrorMessage('Rerun stale cells', failed.map((r) => `${String(r.name)}: ${String(r.error)}`).join('\n'));
     },
   });
   commands.addCommand(CommandIDs.refreshState, {
@@ -58,7 +42,7 @@ export function addStateCommands(commands: CommandRegistry, links: NotebookLinks
       if (!panel) return;
       const path = typeof args.path === 'string' ? args.path : await Private.askPath('Save the sample state to', DEFAULT_STATE_FILE);
       if (path === null) return;
-      await links.linkFor(panel).requestState({ type: 'save', path }).catch(report('Save the sample state'));
+      await links.linkFor(panel).saveState(path).catch(report('Save the sample state'));
     },
   });
   commands.addCommand(CommandIDs.loadState, {
@@ -70,7 +54,7 @@ export function addStateCommands(commands: CommandRegistry, links: NotebookLinks
       if (!panel) return;
       const path = typeof args.path === 'string' ? args.path : await Private.askPath('Load the sample state from', DEFAULT_STATE_FILE);
       if (path === null) return;
-      await links.linkFor(panel).requestState({ type: 'load', path }).catch(report('Load the sample state'));
+      await links.linkFor(panel).loadState(path).catch(report('Load the sample state'));
     },
   });
 }

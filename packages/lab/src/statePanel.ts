@@ -7,22 +7,8 @@ import type { NotebookPanel } from '@jupyterlab/notebook';
 import type { CommandRegistry } from '@lumino/commands';
 import { Widget } from '@lumino/widgets';
 import { CommandIDs } from './commandIds';
-import type { NotebookLinks, SessionLink } from './links';
+import { findResultCell, type NotebookLinks, type SessionLink } from './links';
 import type { StateSnapshot } from './protocol';
-
-/** Where in the notebook the cell that made a result sits, for "made by" labels and reruns. */
-export function findResultCell(panel: NotebookPanel, name: string, cellId?: string): { index: number; executionCount: number | null } | null {
-  const cells = panel.content.widgets;
-  for (let index = 0; index < cells.length; index++) {
-    const model = cells[index].model;
-    const header = /^\s*\[([\w-]+)\]\s+([^\s#]+)/.exec(model.sharedModel.getSource().split('\n', 1)[0]);
-    if ((cellId !== undefined && model.id === cellId) || (header && header[2] === name)) {
-      const count = (model as { executionCount?: number | null }).executionCount;
-      return { index, executionCount: count ?? null };
-    }
-  }
-  return null;
-}
 
 export class SampleStatePanel extends Widget {
   constructor(links: NotebookLinks, commands: CommandRegistry) {
@@ -109,13 +95,14 @@ export class SampleStatePanel extends Widget {
       content.appendChild(empty);
       return;
     }
-    content.appendChild(this._section('Compound', Private.compoundList(snapshot.compound)));
+    content.appendChild(this._section('Compound', Private.compoundList(snapshot.sample)));
     const datasets = document.createElement('ul');
     datasets.className = 'jp-Multiplet-stateDatasets';
     for (const dataset of snapshot.datasets) {
       const item = document.createElement('li');
       item.dataset.name = dataset.name;
-      item.textContent = dataset.description ? `${dataset.name}: ${dataset.description}` : dataset.name;
+      const columns = dataset.columns.map((c) => (c.unit ? `${c.name} (${c.unit})` : c.name)).join(', ');
+      item.textContent = `${dataset.name}: ${dataset.rows} rows; ${columns}`;
       datasets.appendChild(item);
     }
     if (snapshot.datasets.length === 0) datasets.appendChild(Private.note('no datasets loaded'));
@@ -137,9 +124,10 @@ export class SampleStatePanel extends Widget {
       kind.textContent = entry.kind;
       const origin = document.createElement('span');
       origin.className = 'jp-Multiplet-stateOrigin';
-      const cell = findResultCell(this._panel, entry.name, entry.cellId);
-      const count = entry.executionCount ?? cell?.executionCount ?? null;
-      origin.textContent = cell ? `cell ${cell.index + 1}${count !== null ? ` [${count}]` : ''}` : 'cell not in this notebook';
+      const index = findResultCell(this._panel, entry.name);
+      const count = entry.executionCount !== null ? ` [${entry.executionCount}]` : '';
+      origin.textContent = index >= 0 ? `made by cell ${index + 1}${count}` : `made by a cell${count} not in this notebook`;
+      if (entry.reads.length > 0) item.title = `reads ${entry.reads.join(', ')}`;
       item.append(name, kind, origin);
       if (entry.stale) {
         const mark = document.createElement('span');
@@ -177,6 +165,7 @@ namespace Private {
     return item;
   }
 
+  /** The sample as the kernel sends it: its cell's result name and fields (units in the field names). */
   export function compoundList(compound: Record<string, unknown> | null): HTMLElement {
     const list = document.createElement('dl');
     list.className = 'jp-Multiplet-stateCompound';
@@ -188,6 +177,7 @@ namespace Private {
       return list;
     }
     for (const [key, value] of Object.entries(compound)) {
+      if (value === null) continue;
       const term = document.createElement('dt');
       term.textContent = key;
       const description = document.createElement('dd');
