@@ -9,7 +9,15 @@ export interface ComputeKind {
 }
 
 import { crystalField } from './crystalField';
+import { magnetization } from './magnetization';
+import { susceptibility } from './susceptibility';
+import { heatCapacity } from './heatCapacity';
+import { entropy } from './entropy';
 
 export const COMPUTE_KINDS: Record<string, ComputeKind> = {
   'crystal-field': crystalField,
+  magnetization,
+  susceptibility,
+  'heat-capacity': heatCapacity,
+  entropy,
 };
