@@ -30,6 +30,8 @@ export interface StartKernelOptions {
   connection: ConnectionInfo;
   session: CellSession;
   log?: (text: string) => void;
+  /** Serve control from this bundled worker (controlChannel.worker.js); in-thread when absent. */
+  controlWorker?: URL;
   /** After a shutdown_request is answered; the default stops the sockets. */
   onShutdown?: (restart: boolean, kernel: RunningKernel) => void;
 }
@@ -38,7 +40,7 @@ export async function startKernel(options: StartKernelOptions): Promise<RunningK
   const log = options.log ?? ((text: string) => process.stderr.write(`[multiplet kernel] ${text}\n`));
   const signer = createSigner(options.connection.key, options.connection.signature_scheme);
   if (!signer.enabled) log('the connection file has an empty key: message signing is disabled, as the protocol specifies');
-  const sockets = await bindSockets(options.connection, log);
+  const sockets = await bindSockets(options.connection, log, options.controlWorker ? { controlWorker: options.controlWorker } : {});
   let kernel: RunningKernel | undefined;
   const router = new KernelRouter({
     session: options.session,
@@ -47,6 +49,7 @@ export async function startKernel(options: StartKernelOptions): Promise<RunningK
     identity: KERNEL_IDENTITY,
     send: (socket, frames) => sockets.send(socket, frames),
     log,
+    ...(sockets.taskState ? { taskState: sockets.taskState } : {}),
     onShutdown: (restart) => {
       if (!kernel) return;
       if (options.onShutdown) options.onShutdown(restart, kernel);

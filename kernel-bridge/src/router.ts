@@ -12,6 +12,7 @@ import type { MessageFactory } from './messageFactory';
 import { ReplayGuard, type Signer } from './signing';
 import { decodeMessage, encodeMessage, type JsonObject, type ReceivedMessage } from './wire';
 import { CONTROL_HANDLERS, SHELL_HANDLERS } from './handlers/index';
+import { TASK_RUNNING } from './controlChannel';
 import type { Channel, HandlerContext, KernelIdentity, KernelState } from './handlers/context';
 
 export type SocketName = 'shell' | 'control' | 'iopub' | 'stdin';
@@ -24,6 +25,8 @@ export interface RouterOptions {
   /** Queue frames for sending on a socket (the sockets layer serialises sends per socket). */
   send(socket: SocketName, frames: Buffer[]): Promise<void>;
   log(text: string): void;
+  /** Shared with the control worker: slot TASK_RUNNING is 1 while a cancellable task (cell, comm handler) runs. */
+  taskState?: Int32Array;
   /** Called after a shutdown_request's reply and idle are out. */
   onShutdown?(restart: boolean): void;
 }
@@ -112,9 +115,9 @@ export class KernelRouter {
     }
   }
 
-  private publish(msgType: string, content: JsonObject, parent: JsonObject): void {
+  private publish(msgType: string, content: JsonObject, parent: JsonObject): Promise<void> {
     const frames = encodeMessage([], this.options.factory.message(msgType, content, parent), this.options.signer);
-    this.options.send('iopub', frames).catch((err) => this.options.log(`iopub send failed: ${String(err)}`));
+    return this.options.send('iopub', frames).catch((err) => this.options.log(`iopub send failed: ${String(err)}`));
   }
 
   private async sendReply(channel: Channel, request: ReceivedMessage, msgType: string, content: JsonObject): Promise<void> {
@@ -155,10 +158,13 @@ export class KernelRouter {
         cancellable: async (work) => {
           const flag = new Int32Array(new SharedArrayBuffer(4));
           this.cancelFlag = flag;
+          const taskState = this.options.taskState;
+          if (taskState) Atomics.store(taskState, TASK_RUNNING, 1);
           try {
             return await work(flag);
           } finally {
             if (this.cancelFlag === flag) this.cancelFlag = undefined;
+            if (taskState) Atomics.store(taskState, TASK_RUNNING, 0);
           }
         },
         abortQueuedExecutes: () => {

@@ -30,8 +30,8 @@ export interface HandlerContext {
   readonly identity: KernelIdentity;
   /** Send the reply on the request's channel, back to its sender. */
   reply(msgType: string, content: JsonObject): Promise<void>;
-  /** Publish on IOPub with the request as parent. */
-  publish(msgType: string, content: JsonObject, parent?: JsonObject): void;
+  /** Publish on IOPub with the request as parent; resolves once sent (await it before blocking work). */
+  publish(msgType: string, content: JsonObject, parent?: JsonObject): Promise<void>;
   /** Map a session output to its IOPub message, with the request as parent. */
   publishOutput(output: CellOutput, parent?: JsonObject): void;
   /**

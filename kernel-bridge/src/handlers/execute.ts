@@ -24,7 +24,8 @@ export const execute: Handler = async (ctx) => {
 
   if (storeHistory) ctx.state.executionCount += 1;
   const executionCount = ctx.state.executionCount;
-  if (!silent) ctx.publish('execute_input', { code, execution_count: executionCount });
+  // Wait until busy and execute_input are on the wire: a cell that blocks the thread must not hold them back.
+  if (!silent) await ctx.publish('execute_input', { code, execution_count: executionCount });
 
   let finished = false;
   const emit = (output: CellOutput) => {

@@ -2,6 +2,8 @@
  * `multiplet kernel start --connection-file FILE`: run the Jupyter kernel on one cells session until a
  * shutdown_request (or SIGTERM). SIGINT interrupts the running cell instead of ending the process.
  */
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { readConnectionFile, startKernel } from '@multiplet/kernel-bridge';
 import { createCellSession } from '@multiplet/cells/session/session';
 
@@ -33,6 +35,10 @@ export async function startCommand(args: string[]): Promise<number> {
     return 2;
   }
   const session = createCellSession();
+  // The build puts kernel-bridge/src/controlChannel.worker.ts beside this bundle (packages/cli/dist/).
+  const workerUrl = new URL('./controlChannel.worker.js', import.meta.url);
+  const controlWorker = existsSync(fileURLToPath(workerUrl)) ? workerUrl : undefined;
+  if (!controlWorker) log('control worker bundle not found: control is served on the main thread (interrupts need cooperative cells)');
   return new Promise<number>((resolve, reject) => {
     let stopping = false;
     const finish = (kernel: { stop(): Promise<void> }) => {
@@ -40,7 +46,7 @@ export async function startCommand(args: string[]): Promise<number> {
       stopping = true;
       kernel.stop().then(() => resolve(0), reject);
     };
-    startKernel({ connection, session, log, onShutdown: (_restart, kernel) => finish(kernel) }).then((kernel) => {
+    startKernel({ connection, session, log, ...(controlWorker ? { controlWorker } : {}), onShutdown: (_restart, kernel) => finish(kernel) }).then((kernel) => {
       // Without a listener Node would exit on SIGINT; the signal is the fallback way to interrupt a cell.
       process.on('SIGINT', () => {
         log('SIGINT: interrupting the running cell');
