@@ -9,7 +9,7 @@
  * See also: cefTransitions, neutronSpectrum
  */
 import { InputError } from '../errors';
-import { angularMomentumMatrices } from '../cef/angularMomentum';
+import { checkJ } from '../cef/angularMomentum';
 import type { ComplexMatrix } from '../linalg/complexMatrix';
 
 export interface TransitionStrengths {
@@ -20,32 +20,46 @@ export interface TransitionStrengths {
   readonly totalSquares: Float64Array;
 }
 
-/** V† A V for Hermitian A and unitary V (columns = eigenvectors). */
-function transform(a: ComplexMatrix, v: ComplexMatrix): ComplexMatrix {
-  const n = a.n;
-  // T = A V
-  const tr = new Float64Array(n * n), ti = new Float64Array(n * n);
-  for (let r = 0; r < n; r++)
-    for (let k = 0; k < n; k++) {
-      const ar = a.re[r * n + k], ai = a.im[r * n + k];
-      if (ar === 0 && ai === 0) continue;
+/**
+ * V† J+ V and V† Jz V using the sparsity of J+ (one superdiagonal) and Jz (diagonal): 2n³ complex operations instead
+ * of the 6n³ of dense products. Basis order m = J − k (DEVELOPERS.md § Conventions): J+|m⟩ ∝ |m+1⟩, index k → k − 1.
+ */
+function projectedOperators(J: number, v: ComplexMatrix): { plus: ComplexMatrix; z: ComplexMatrix } {
+  const n = v.n;
+  const x = J * (J + 1);
+  // W = J+ V and Z = Jz V (row-major n×n)
+  const wr = new Float64Array(n * n), wi = new Float64Array(n * n);
+  const zr = new Float64Array(n * n), zi = new Float64Array(n * n);
+  for (let r = 0; r < n; r++) {
+    const m = J - r;
+    for (let c = 0; c < n; c++) {
+      zr[r * n + c] = m * v.re[r * n + c];
+      zi[r * n + c] = m * v.im[r * n + c];
+    }
+    if (r + 1 < n) {
+      const mBelow = J - (r + 1);
+      const coefficient = Math.sqrt(x - mBelow * (mBelow + 1)); // ⟨m+1|J+|m⟩ with m = mBelow
       for (let c = 0; c < n; c++) {
-        const vr = v.re[k * n + c], vi = v.im[k * n + c];
-        tr[r * n + c] += ar * vr - ai * vi;
-        ti[r * n + c] += ar * vi + ai * vr;
+        wr[r * n + c] = coefficient * v.re[(r + 1) * n + c];
+        wi[r * n + c] = coefficient * v.im[(r + 1) * n + c];
       }
     }
-  // V† T
-  const re = new Float64Array(n * n), im = new Float64Array(n * n);
-  for (let r = 0; r < n; r++)
-    for (let k = 0; k < n; k++) {
-      const vr = v.re[k * n + r], vi = -v.im[k * n + r];
-      for (let c = 0; c < n; c++) {
-        re[r * n + c] += vr * tr[k * n + c] - vi * ti[k * n + c];
-        im[r * n + c] += vr * ti[k * n + c] + vi * tr[k * n + c];
+  }
+  const project = (tr: Float64Array, ti: Float64Array): ComplexMatrix => {
+    const re = new Float64Array(n * n), im = new Float64Array(n * n);
+    for (let k = 0; k < n; k++)
+      for (let r = 0; r < n; r++) {
+        const vr = v.re[k * n + r], vi = -v.im[k * n + r];
+        if (vr === 0 && vi === 0) continue;
+        const row = r * n, src = k * n;
+        for (let c = 0; c < n; c++) {
+          re[row + c] += vr * tr[src + c] - vi * ti[src + c];
+          im[row + c] += vr * ti[src + c] + vi * tr[src + c];
+        }
       }
-    }
-  return { n, re, im };
+    return { n, re, im };
+  };
+  return { plus: project(wr, wi), z: project(zr, zi) };
 }
 
 /**
@@ -58,10 +72,9 @@ export function transitionStrengths(
   eigenvectors: ComplexMatrix,
   options: { qDirection?: readonly [number, number, number] } = {},
 ): TransitionStrengths {
-  const { Jx, Jy, Jz } = angularMomentumMatrices(J);
-  const n = Jx.n;
+  const n = checkJ(J);
   if (eigenvectors.n !== n) throw new InputError('eigenvectors', eigenvectors.n, `a ${n}×${n} matrix for J = ${J}`);
-  const m = [transform(Jx, eigenvectors), transform(Jy, eigenvectors), transform(Jz, eigenvectors)];
+  const { plus, z } = projectedOperators(J, eigenvectors);
   let q: [number, number, number] | undefined;
   if (options.qDirection) {
     const [a, b, c] = options.qDirection;
@@ -71,17 +84,25 @@ export function transitionStrengths(
   }
   const strengths = new Float64Array(n * n);
   const totalSquares = new Float64Array(n * n);
-  for (let k = 0; k < n * n; k++) {
-    let total = 0;
-    for (let a = 0; a < 3; a++) total += m[a].re[k] ** 2 + m[a].im[k] ** 2;
-    totalSquares[k] = total;
-    if (q) {
-      const pr = q[0] * m[0].re[k] + q[1] * m[1].re[k] + q[2] * m[2].re[k];
-      const pi = q[0] * m[0].im[k] + q[1] * m[1].im[k] + q[2] * m[2].im[k];
-      strengths[k] = Math.max(0, total - pr * pr - pi * pi);
-    } else {
-      strengths[k] = (2 / 3) * total;
+  for (let j = 0; j < n; j++)
+    for (let i = 0; i < n; i++) {
+      const k = j * n + i;
+      const t = i * n + j;
+      // ⟨j|J+|i⟩ = P, ⟨j|J−|i⟩ = conj(⟨i|J+|j⟩) = M; Jx = (J+ + J−)/2, Jy = (J+ − J−)/(2i).
+      const pr = plus.re[k], pi = plus.im[k];
+      const mr = plus.re[t], mi = -plus.im[t];
+      const xr = 0.5 * (pr + mr), xi = 0.5 * (pi + mi);
+      const yr = 0.5 * (pi - mi), yi = -0.5 * (pr - mr);
+      const zr = z.re[k], zi = z.im[k];
+      const total = xr * xr + xi * xi + yr * yr + yi * yi + zr * zr + zi * zi;
+      totalSquares[k] = total;
+      if (q) {
+        const dr = q[0] * xr + q[1] * yr + q[2] * zr;
+        const di = q[0] * xi + q[1] * yi + q[2] * zi;
+        strengths[k] = Math.max(0, total - dr * dr - di * di);
+      } else {
+        strengths[k] = (2 / 3) * total;
+      }
     }
-  }
   return { n, strengths, totalSquares };
 }
