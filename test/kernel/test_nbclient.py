@@ -55,7 +55,9 @@ class NbclientTests(unittest.TestCase):
         self.assertEqual(log[0].output_type, "stream")
         self.assertEqual(log[0].text, "ion: Dy3+ datasets: cp,cpFile\n")
         self.assertEqual(code_cells["script-display"].outputs[0].output_type, "display_data")
-        self.assertEqual(code_cells["script-value"].outputs[0].data["text/plain"], "3")
+        self.assertEqual(code_cells["script-value"].outputs[0].data["text/plain"], "4")
+        self.assertEqual(code_cells["script-names"].outputs[0].text, "host, cp, cpFile, cefDy\n")
+        self.assertIn("application/vnd.vegalite.v5+json", code_cells["crystal-field"].outputs[0].data)
         self.assertEqual([c.execution_count for c in code_cells.values()], list(range(1, len(code_cells) + 1)))
 
     def test_a_failing_cell_stops_nbclient_with_the_cell_error(self):
