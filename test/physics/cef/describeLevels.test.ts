@@ -3,7 +3,7 @@ import { describeLevels, solveCef } from '@multiplet/physics/cef';
 import { getIon } from '@multiplet/physics/ions';
 
 describe('describeLevels', () => {
-  it('writes Ce3+ cubic Γ7 states as √(1/6)|±5/2⟩ − √(5/6)|∓3/2⟩ (Hutchings 1964 § 6; Abragam & Bleaney; from memory)', () => {
+  it('writes Ce3+ cubic Γ7 states as √(1/6)|±5/2⟩ − √(5/6)|∓3/2⟩ (Hutchings 1964; Abragam & Bleaney; from memory)', () => {
     const s = solveCef(getIon('Ce3+'), { B40: 0.01, B44: 0.05 });
     const [up, down] = describeLevels(s)[0].states;
     // ⟨Jz⟩ descending inside the level: the first state has ⟨Jz⟩ = (5/6)(3/2) + (1/6)(−5/2) = 5/6

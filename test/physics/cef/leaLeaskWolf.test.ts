@@ -6,7 +6,7 @@ import type { Ion } from '@multiplet/physics/ions';
 /**
  * Degeneracies of the cubic levels of a J multiplet: the decomposition of D^J into irreducible representations
  * of O (O*), as listed by Lea, Leask & Wolf (1962) for each J (Γ1, Γ2 singlets; Γ3, Γ6, Γ7 doublets; Γ4, Γ5
- * triplets; Γ8 quartets). Bethe's decomposition, also in Abragam & Bleaney 1970 Table 16 (common practice).
+ * triplets; Γ8 quartets). Bethe's decomposition, also in Abragam & Bleaney 1970 (common practice).
  */
 const CUBIC_DEGENERACIES: Record<number, number[]> = {
   5: [2, 4], // Γ7 + Γ8

@@ -40,7 +40,7 @@ describe('Wigner rotation matrices', () => {
     }
   });
 
-  it('D(A)† J_i D(A) = Σ_j A_ij J_j for the active rotation A = Rz(α)Ry(β)Rz(γ) (Sakurai eq. 3.10.3)', () => {
+  it('D(A)† J_i D(A) = Σ_j A_ij J_j for the active rotation A = Rz(α)Ry(β)Rz(γ) (Sakurai, Modern Quantum Mechanics, ch. 3)', () => {
     const angles = { alpha: 0.3, beta: 1.1, gamma: -0.8 };
     const A = rotationMatrixFromEuler(angles);
     const J = 2.5;

@@ -50,7 +50,7 @@ describe('site symmetry table', () => {
     }
   });
 
-  it('cubic groups: B40(O40 + 5 O44) and B60(O60 − 21 O64) are invariant, O40 alone and O44 alone are not (Hutchings 1964 eq. 6.2)', () => {
+  it('cubic groups: B40(O40 + 5 O44) and B60(O60 − 21 O64) are invariant, O40 alone and O44 alone are not (Hutchings 1964, cubic fields; from memory)', () => {
     for (const group of ['Oh', 'Td', 'O']) {
       expect(invariant({ B40: 1, B44: 5 }, GENERATORS[group])).toBe(true);
       expect(invariant({ B60: 1, B64: -21 }, GENERATORS[group])).toBe(true);

@@ -21,7 +21,7 @@ function doubletGValues(solution: CefSolution): number[][] {
 }
 
 describe('solveCef: checks against published results', () => {
-  it('Ce3+ in a cubic field B4(O40 + 5 O44): Γ7 doublet and Γ8 quartet split by 360·B4, Γ7 isotropic g = 10/7 (Hutchings 1964 § 6; Abragam & Bleaney 1970)', () => {
+  it('Ce3+ in a cubic field B4(O40 + 5 O44): Γ7 doublet and Γ8 quartet split by 360·B4, Γ7 isotropic g = 10/7 (Hutchings 1964; Abragam & Bleaney 1970)', () => {
     const B4 = 0.01;
     const s = solveCef(getIon('Ce3+'), { B40: B4, B44: 5 * B4 });
     expect(s.levels.map((l) => l.degeneracy)).toEqual([2, 4]);

@@ -38,7 +38,7 @@ describe('stevensOperator', () => {
     }
   });
 
-  it('matches hand-evaluated textbook forms (Hutchings 1964 Table VII)', () => {
+  it('matches hand-evaluated textbook forms (Hutchings 1964, operator tables)', () => {
     const J = 2.5;
     const { Jz, Jplus, Jminus } = angularMomentumMatrices(J);
     const X = J * (J + 1);
@@ -56,7 +56,7 @@ describe('stevensOperator', () => {
     void Jz;
   });
 
-  it('Legendre scale factors: P2 = (3μ²−1)/2, P4 = (35μ⁴−30μ²+3)/8, d²P6/dμ² = 210(33μ⁴−18μ²+1)/16 (Abramowitz & Stegun 22.3.8)', () => {
+  it('Legendre scale factors: P2 = (3μ²−1)/2, P4 = (35μ⁴−30μ²+3)/8, d²P6/dμ² = 210(33μ⁴−18μ²+1)/16 (Abramowitz & Stegun ch. 22)', () => {
     expect(legendreDerivativeScale(2, 0)).toBe(1 / 2);
     expect(legendreDerivativeScale(4, 0)).toBe(1 / 8);
     expect(legendreDerivativeScale(6, 2)).toBe(210 / 16);

@@ -4,8 +4,8 @@ import { stevensOperator } from '@multiplet/physics/cef';
 import { wigner3j, clebschGordan } from './wignerForTests';
 
 /**
- * Published Hund's-rule terms and Landé factors of the R3+ ions (Abragam & Bleaney 1970, Table 5.1; Jensen &
- * Mackintosh, Rare Earth Magnetism (1991), Table 1.1; from memory: the term symbols and g_J fractions are textbook
+ * Published Hund's-rule terms and Landé factors of the R3+ ions (Abragam & Bleaney 1970; Jensen &
+ * Mackintosh, Rare Earth Magnetism (1991); from memory: the term symbols and g_J fractions are textbook
  * values recalled here).
  */
 const PUBLISHED: Record<string, { term: string; J: number; gJ: number }> = {
@@ -26,7 +26,7 @@ const PUBLISHED: Record<string, { term: string; J: number; gJ: number }> = {
 const L_LETTERS = 'SPDFGHI';
 
 /**
- * Stevens factors as published (Stevens 1952; Hutchings 1964 Table VI; from memory). Several are also quoted in the
+ * Stevens factors as published (Stevens 1952; Hutchings 1964, Stevens-factor table; from memory). Several are also quoted in the
  * brief for this module (Dy3+: α = −2/315, β = −8/135135, γ = 4/3864861).
  */
 const PUBLISHED_STEVENS: Record<string, [number, number, number]> = {
@@ -44,9 +44,9 @@ const PUBLISHED_STEVENS: Record<string, [number, number, number]> = {
  * Independent computation of θ_k (k = 2, 4, 6) for the Hund's-rule ground state, not using the table:
  * |L, M_L = L; S, M_S = S⟩ is one Slater determinant (m_l = 3, 2, … spin up, then spin down), so
  * ⟨Σ_i C^k_0(i)⟩ there is a sum of one-electron ⟨3 m_l|C^k_0|3 m_l⟩ = (−1)^{m_l} 7 (3 k 3; 0 0 0)(3 k 3; −m_l 0 m_l)
- * (Edmonds 1957 eq. 5.4.5). Wigner–Eckart carries this to every M_L (∝ the diagonal of O_k^0(L)) and Clebsch–Gordan
+ * (Edmonds 1957, ch. 5). Wigner–Eckart carries this to every M_L (∝ the diagonal of O_k^0(L)) and Clebsch–Gordan
  * coupling to |J, J⟩. Finally Σ_i p_k0(r_i) = θ_k ⟨r^k⟩ O_k^0 with p_20 = 2r²C^2_0, p_40 = 8r⁴C^4_0,
- * p_60 = 16r⁶C^6_0 (Legendre polynomials, Abramowitz & Stegun 22.3.8).
+ * p_60 = 16r⁶C^6_0 (Legendre polynomials, Abramowitz & Stegun ch. 22).
  */
 function stevensFactorFromDeterminant(ion: Ion, k: number): number {
   const { nf, S, L, J } = ion;
@@ -75,7 +75,7 @@ describe('ion table', () => {
     expect(ION_NAMES).toEqual(['Ce3+', 'Pr3+', 'Nd3+', 'Pm3+', 'Sm3+', 'Eu3+', 'Gd3+', 'Tb3+', 'Dy3+', 'Ho3+', 'Er3+', 'Tm3+', 'Yb3+']);
   });
 
-  it('Hund’s rules and Landé g_J match the published term symbols and g_J (Abragam & Bleaney Table 5.1)', () => {
+  it('Hund’s rules and Landé g_J match the published term symbols and g_J (Abragam & Bleaney 1970)', () => {
     for (const name of ION_NAMES) {
       const ion = getIon(name);
       const p = PUBLISHED[name];
@@ -89,7 +89,7 @@ describe('ion table', () => {
     expect(landeG(0.5, 0, 0.5)).toBe(2);
   });
 
-  it('Stevens factors equal the published fractions (Stevens 1952; Hutchings 1964 Table VI)', () => {
+  it('Stevens factors equal the published fractions (Stevens 1952; Hutchings 1964, Stevens-factor table)', () => {
     for (const [name, [a, b, c]] of Object.entries(PUBLISHED_STEVENS)) {
       const ion = getIon(name);
       expect(ion.stevens.alpha, name).toBeCloseTo(a, 15);

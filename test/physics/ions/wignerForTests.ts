@@ -1,7 +1,7 @@
 /**
  * Test-only angular-momentum coupling helpers, written independently of the library (Racah's formula for the
- * Wigner 3j symbol: Edmonds, Angular Momentum in Quantum Mechanics (1957), eq. 3.7.3; Clebsch–Gordan via
- * eq. 3.7.1). Arguments may be half-integers.
+ * Wigner 3j symbol: Edmonds, Angular Momentum in Quantum Mechanics (1957), ch. 3; Clebsch–Gordan via
+ * its 3j form). Arguments may be half-integers.
  */
 function factorial(n: number): number {
   if (n < 0 || !Number.isInteger(Math.round(n * 2) / 2)) throw new Error(`factorial of ${n}`);

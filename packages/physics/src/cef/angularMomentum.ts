@@ -1,7 +1,7 @@
 /**
  * Angular-momentum matrices in the |J, m⟩ basis (basis order: DEVELOPERS.md § Conventions, index k ↔ m = J − k).
  *
- * Matrix elements (Condon–Shortley phases; e.g. Sakurai, Modern Quantum Mechanics, eq. 3.5.41):
+ * Matrix elements (Condon–Shortley phases; e.g. Sakurai, Modern Quantum Mechanics, ch. 3):
  *   ⟨J, m±1| J± |J, m⟩ = sqrt(J(J+1) − m(m±1)),   Jx = (J+ + J−)/2,   Jy = (J+ − J−)/(2i).
  */
 import { InputError } from '../errors';

@@ -1,5 +1,5 @@
 /**
- * The crystal-field Hamiltonian H_CEF = Σ_{n,m} B_n^m O_n^m in the |J, m⟩ basis (Stevens 1952; Hutchings 1964 eq. 5.6).
+ * The crystal-field Hamiltonian H_CEF = Σ_{n,m} B_n^m O_n^m in the |J, m⟩ basis (Stevens 1952; Hutchings 1964).
  * Parameters in meV with the Stevens factors already included (DEVELOPERS.md § Conventions).
  */
 import { InputError } from '../errors';

@@ -1,5 +1,5 @@
 /**
- * The cubic crystal field written with z along a three-fold axis [111] (Hutchings 1964, § 6, eq. 6.4; from
+ * The cubic crystal field written with z along a three-fold axis [111] (Hutchings 1964, cubic fields; from
  * memory, and reproduced by rotateCefParameters in test/physics/cef/cubicToTrigonal.test.ts):
  *
  *   H = B4 (O40 + 5 O44) + B6 (O60 − 21 O64)                                   (z ∥ [001])

@@ -28,7 +28,7 @@ const CUBIC_RATIO_TOLERANCE = 1e-6;
  * - with a symmetry, a non-zero parameter the symmetry forbids is an InputError naming the parameter and the
  *   symmetry (zeros are accepted and dropped);
  * - cubic symmetries (Oh, Td, O; z ∥ [001]): B44 and B64 may be omitted and are then filled in as B44 = 5 B40 and
- *   B64 = −21 B60 (Hutchings 1964 eq. 6.2); if given they must satisfy these ratios to 1e-6 relative.
+ *   B64 = −21 B60 (Hutchings 1964, cubic fields; from memory); if given they must satisfy these ratios to 1e-6 relative.
  * Zero-valued parameters are dropped from the result.
  *
  * @example normalizeCefParameters({ B40: 1, B60: 0.01 }, { unit: 'K', symmetry: 'Oh' }) // meV, B44 and B64 filled in

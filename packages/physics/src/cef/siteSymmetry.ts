@@ -1,14 +1,14 @@
 /**
  * Which Stevens parameters a site symmetry allows, for the frame conventions stated here (z along the principal
  * axis). The selection rules follow from invariance of Re/Im[(x+iy)^m] p_nm(z) under the group's operations
- * (Hutchings 1964 §§ 5–6; Walter, Z. Phys. B 62, 299 (1984), tables; common practice for the frames):
+ * (group theory as in Hutchings 1964; common practice for the frames; checked by invariance under each group's generators in test/physics/cef/siteSymmetry.test.ts):
  * - a C_k rotation about z keeps only m ≡ 0 (mod k); σ_h (z → −z) keeps only even m (n is even);
  *   S4 keeps m ≡ 0 (mod 4); inversion changes nothing for even n.
  * - a mirror plane xz (y → −y) removes the sine types; a two-fold axis along y removes the sine types too;
  *   a two-fold axis along x keeps cos for even n − m and sin for odd n − m.
  *
  * Frames:
- * - cubic Oh, Td, O: z ∥ [001], x ∥ [100]; B40, B44 = 5 B40, B60, B64 = −21 B60 (Hutchings 1964 eq. 6.2).
+ * - cubic Oh, Td, O: z ∥ [001], x ∥ [100]; B40, B44 = 5 B40, B60, B64 = −21 B60 (Hutchings 1964, cubic fields; from memory).
  * - D4h, D4, C4v, D2d: z ∥ 4-fold (S4 for D2d), x along a two-fold axis / in a mirror: B20, B40, B44, B60, B64.
  * - C4h, C4, S4: B20, B40, B44, B4-4, B60, B64, B6-4.
  * - D3d, D3, C3v: z ∥ 3-fold, y along a two-fold axis (D3, D3d), xz a mirror plane (C3v, D3d). With this frame all

@@ -3,8 +3,8 @@
  * explicit polynomial forms in Jz, J+ and J−.
  *
  * Forms (X = J(J+1)): K. W. H. Stevens, Proc. Phys. Soc. A 65, 209 (1952); M. T. Hutchings, Solid State Phys. 16, 227
- * (1964), Table VII; the full set with odd m and sine types in the same normalisation as collected by C. Rudowicz,
- * J. Phys. C 18, 1415 (1985). From memory: the polynomials f_n^m below are recalled; they are checked to 1e-12
+ * (1964), operator tables; the full set with odd m and sine types in the same normalisation as collected by C. Rudowicz
+ * (1985). From memory: the polynomials f_n^m below are recalled; they are checked to 1e-12
  * against the independent tensor-operator construction in cef/stevensOperatorFromTensor.ts
  * (test/physics/cef/stevensOperator.test.ts).
  *
@@ -19,7 +19,7 @@ import { checkJ } from './angularMomentum';
 
 type Polynomial = (mz: number, X: number) => number;
 
-/** f_n^m(Jz) of the table above (Hutchings 1964 Table VII; Rudowicz 1985; from memory, checked by the tensor route). */
+/** f_n^m(Jz) of the table above (Hutchings 1964, operator tables; Rudowicz 1985; from memory, checked by the tensor route). */
 const F: Record<string, Polynomial> = {
   '2,0': (z, X) => 3 * z * z - X,
   '2,1': (z) => z,

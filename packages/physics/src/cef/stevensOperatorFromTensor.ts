@@ -2,7 +2,7 @@
  * An independent route to the Stevens operators: spherical tensor operators generated from J+^n by repeated
  * commutators with J−, scaled to the Stevens normalisation computed from Legendre polynomials.
  *
- * Reasoning (operator-equivalent method, Stevens 1952; tensor operators: Racah 1942, Edmonds 1957 §5):
+ * Reasoning (operator-equivalent method, Stevens 1952; tensor operators: Racah 1942, Edmonds 1957 ch. 5):
  * - The operator equivalent of a polynomial in (x, y, z) is its fully symmetrised form in (Jx, Jy, Jz). The map
  *   commutes with rotations: [J_a, ·] acts on operators as L_a = −i(r × ∇)_a acts on polynomials.
  * - (x + iy)^n ↦ J+^n exactly. Lowering: L− [r^n F_n^q] = −(n+q)(n−q+1) r^n F_n^{q−1}, where
@@ -10,7 +10,7 @@
  *   follows from L− Y_n^q = sqrt((n+q)(n−q+1)) Y_n^{q−1} with Condon–Shortley phases).
  * - So T_q := ad(J−)^{n−q} J+^n is the operator equivalent of (K_nq / g_nn) (x+iy)^q r^{n−q} P_n^{(q)}(z/r),
  *   with K_nq = Π_{q'=q+1}^{n} [−(n+q')(n−q'+1)] and g_nn = P_n^{(n)} = (2n)!/(2^n n!) (a constant).
- * - Stevens' normalisation (Stevens 1952; Hutchings 1964 Table VII): O_n^q ↔ Re[(x+iy)^q] p_nq(z, r),
+ * - Stevens' normalisation (Stevens 1952; Hutchings 1964, operator tables): O_n^q ↔ Re[(x+iy)^q] p_nq(z, r),
  *   O_n^{−q} ↔ Im[(x+iy)^q] p_nq, where p_nq is r^{n−q} P_n^{(q)}(z/r) divided by g_nq, the factor that leaves
  *   coprime integer coefficients with a positive leading one (e.g. p_40 = 35z⁴ − 30z²r² + 3r⁴, p_42 = 7z² − r²).
  * Hence O_n^q = g_nn (T_q + T_q†)/(2 K_nq g_nq) and O_n^{−q} = g_nn (T_q − T_q†)/(2i K_nq g_nq).
@@ -38,7 +38,7 @@ function gcd(a: number, b: number): number {
  * @example legendreDerivativeScale(4, 0) // 1/8, since P_4 = (35μ⁴ − 30μ² + 3)/8
  */
 export function legendreDerivativeScale(n: number, q: number): number {
-  // 2^n P_n(μ) = Σ_k (−1)^k C(n,k) C(2n−2k, n) μ^{n−2k}  (Rodrigues' formula expanded; Abramowitz & Stegun 22.3.8)
+  // 2^n P_n(μ) = Σ_k (−1)^k C(n,k) C(2n−2k, n) μ^{n−2k}  (Rodrigues' formula expanded; Abramowitz & Stegun ch. 22)
   let coefficients = new Array<number>(n + 1).fill(0);
   for (let k = 0; 2 * k <= n; k++) coefficients[n - 2 * k] = (k % 2 ? -1 : 1) * binomial(n, k) * binomial(2 * n - 2 * k, n);
   for (let d = 0; d < q; d++) coefficients = coefficients.slice(1).map((c, power) => c * (power + 1));

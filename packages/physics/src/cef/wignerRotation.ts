@@ -3,7 +3,7 @@
  * Euler angles.
  *
  * D^J_{m'm}(α, β, γ) = ⟨J m'| e^{−iαJz} e^{−iβJy} e^{−iγJz} |J m⟩ = e^{−im'α} d^J_{m'm}(β) e^{−imγ}, with Wigner's
- * formula for d^J (Edmonds 1957 eq. 4.1.15; Sakurai eq. 3.8.33):
+ * formula for d^J (Edmonds 1957 ch. 4; Sakurai ch. 3):
  *   d^J_{m'm}(β) = Σ_k (−1)^{k−m+m'} sqrt((J+m')!(J−m')!(J+m)!(J−m)!) / [(J+m−k)! k! (J−k−m')! (k−m+m')!]
  *                 × cos(β/2)^{2J−2k+m−m'} sin(β/2)^{2k−m+m'}.
  * The Euler angles describe the active rotation A = Rz(α) Ry(β) Rz(γ) of 3-space, and D(A)† J_i D(A) = Σ_j A_ij J_j.

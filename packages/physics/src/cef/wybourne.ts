@@ -12,7 +12,7 @@
  *   B_k^0 (Stevens) = θ_k λ_k0 B^k_0,
  *   B_k^q  = (−1)^q 2 θ_k λ'_kq Re B^k_q,    B_k^{−q} = −(−1)^q 2 θ_k λ'_kq Im B^k_q,   λ'_kq = sqrt((k−q)!/(k+q)!) g_kq,
  * with λ_kq = 2 λ'_kq (q > 0), λ_k0 = g_k0: the magnitudes are the familiar conversion factors (λ20 = 1/2, λ22 = √6/2,
- * λ43 = √35/2, λ66 = √231/16, …; Kassman, J. Chem. Phys. 53, 4118 (1970); from memory, compared in the tests).
+ * λ43 = √35/2, λ66 = √231/16, …; A. J. Kassman (1970); from memory, compared in the tests).
  * The signs for odd q and for the imaginary parts follow from the Condon–Shortley phase; other texts differ in them.
  */
 import { InputError } from '../errors';

@@ -2,7 +2,7 @@
  * Hund's rules for the ground term of a 4f^n configuration (l = 3).
  *
  * Reference: F. Hund, Linienspektren und periodisches System der Elemente (1927); stated in every textbook
- * (e.g. Abragam & Bleaney 1970, §1.3). Rule 1: maximal S; rule 2: maximal L for that S; rule 3: J = |L − S| for a
+ * (e.g. Abragam & Bleaney 1970, chapter 1). Rule 1: maximal S; rule 2: maximal L for that S; rule 3: J = |L − S| for a
  * shell less than half full, J = L + S for a shell more than half full (and L = 0, J = S at half filling).
  */
 import { InputError } from '../errors';

@@ -4,7 +4,7 @@
  * Computed here (not typed in): S, L, J by Hund's rules (ions/hundsRules.ts) and g_J by the Landé formula
  * (ions/landeG.ts). Typed in, with their sources:
  * - Stevens factors α_J = θ_2, β_J = θ_4, γ_J = θ_6 as exact fractions: K. W. H. Stevens, Proc. Phys. Soc. A 65,
- *   209 (1952) and M. T. Hutchings, Solid State Physics 16, 227 (1964), Table VI. From memory: these fractions are
+ *   209 (1952) and M. T. Hutchings, Solid State Physics 16, 227 (1964), Stevens-factor table. From memory: these fractions are
  *   recalled, and checked in test/physics/ions/ionTable.test.ts against an independent computation from the
  *   Hund's-rule Slater determinant (Clebsch–Gordan recoupling), which they must match exactly.
  * - Radial integrals ⟨r^2⟩, ⟨r^4⟩, ⟨r^6⟩ in bohr^n: A. J. Freeman and J. P. Desclaux, J. Magn. Magn. Mater. 12,
@@ -38,7 +38,7 @@ export interface Ion {
 interface IonConstants {
   element: string;
   nf: number;
-  /** [α_J, β_J, γ_J] (Stevens 1952; Hutchings 1964 Table VI; from memory). */
+  /** [α_J, β_J, γ_J] (Stevens 1952; Hutchings 1964, Stevens-factor table; from memory). */
   stevens: readonly [number, number, number];
   /** [⟨r²⟩, ⟨r⁴⟩, ⟨r⁶⟩] in bohr^n (Freeman & Desclaux 1979; from memory). */
   radial: readonly [number, number, number];
