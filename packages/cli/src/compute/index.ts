@@ -13,6 +13,9 @@ import { magnetization } from './magnetization';
 import { susceptibility } from './susceptibility';
 import { heatCapacity } from './heatCapacity';
 import { entropy } from './entropy';
+import { neutronSpectrum } from './neutronSpectrum';
+import { cefFit } from './cefFit';
+import { exchange } from './exchange';
 
 export const COMPUTE_KINDS: Record<string, ComputeKind> = {
   'crystal-field': crystalField,
@@ -20,4 +23,7 @@ export const COMPUTE_KINDS: Record<string, ComputeKind> = {
   susceptibility,
   'heat-capacity': heatCapacity,
   entropy,
+  exchange,
+  'neutron-spectrum': neutronSpectrum,
+  'cef-fit': cefFit,
 };
