@@ -53,6 +53,27 @@ describe('script cells', () => {
     expect(a.data['text/plain']).toBe(b.data['text/plain']);
   });
 
+  it('task.report shows one updating progress display; an interrupt stops the script at task.checkpoint()', async () => {
+    const s = createCellSession();
+    const r = await runOk(s, 'for (let i = 0; i <= 4; i++) { task.checkpoint(); task.report(i, 4); }\n"finished"');
+    const progress = r.outputs.filter((o) => o.type === 'display_data' || o.type === 'update_display_data');
+    expect(progress[0]).toMatchObject({ type: 'display_data', data: { 'text/plain': 'script: [..............................] 0%' } });
+    expect(progress.at(-1)).toMatchObject({ type: 'update_display_data', data: { 'text/plain': 'script: done' } });
+    expect(new Set(progress.map((o) => (o as { displayId: string }).displayId)).size).toBe(1);
+    const flag = new Int32Array(new SharedArrayBuffer(4));
+    Atomics.store(flag, 0, 1);
+    const stopped = errorOf(await run(s, 'let n = 0;\nwhile (true) { task.checkpoint(); n++; }', flag));
+    expect(stopped.ename).toBe('CellInterrupted');
+  });
+
+  it('an interrupted typed cell commits nothing', async () => {
+    const s = createCellSession();
+    const flag = new Int32Array(new SharedArrayBuffer(4));
+    Atomics.store(flag, 0, 1);
+    expect(errorOf(await run(s, SAMPLE_CELL, flag)).ename).toBe('CellInterrupted');
+    expect(s.state.names()).toEqual([]);
+  });
+
   it('variables do not leak between cells', async () => {
     const s = createCellSession();
     await runOk(s, 'const leaked = 5;');

@@ -105,6 +105,40 @@ describe('crystal-field cells', () => {
   });
 });
 
+describe('references between results', () => {
+  it('a crystal field based on another reads it, goes stale with it, and reruns after it', async () => {
+    const s = createCellSession();
+    await runOk(s, SAMPLE_CELL);
+    await runOk(s, CEF_CELL);
+    const varied = await runOk(s, '[crystal-field] cefB\nbase: cefA\nB:\n  B20: -0.5 meV\n');
+    const payload = varied.data[RESULT_MIME_TYPE] as ResultPayload & { result: { parametersMeV: Record<string, number> } };
+    expect(payload.result.parametersMeV).toEqual({ B20: -0.5, B40: 1.2e-3, B43: 0.01 });
+    expect(payload.provenance.reads).toEqual(['cefA', 'host']);
+    await runOk(s, CEF_CELL.replace('B43: 0.01 meV', 'B43: 0.02 meV'));
+    expect(s.state.get('cefB')!.stale).toBe(true);
+    expect(await s.rerunStale({ emit: () => {} })).toEqual([{ name: 'cefB', status: 'ok' }]);
+    expect((s.state.get('cefB')!.result as { parametersMeV: Record<string, number> }).parametersMeV.B43).toBe(0.02);
+  });
+
+  it('unknown or wrong-kind references are positioned errors naming the known results', async () => {
+    const s = createCellSession();
+    await runOk(s, SAMPLE_CELL);
+    await runOk(s, CEF_CELL);
+    const unknown = errorOf(await run(s, '[crystal-field] c\nbase: cefX\n'));
+    expect(unknown.ename).toBe('CellReferenceError');
+    expect(unknown.evalue).toBe('line 2, column 7: base: got "cefX", expected the name of an earlier crystal-field result (known: cefA) (did you mean cefA?)');
+    const wrongKind = errorOf(await run(s, '[crystal-field] c\nbase: host\n'));
+    expect(wrongKind.evalue).toMatch(/^line 2, column 7: base: got "host", expected the name of an earlier crystal-field result, not a sample result/);
+    await runOk(s, '[crystal-field] cefB\nbase: cefA\n');
+    const before = s.state.serialize();
+    const cycle = errorOf(await run(s, '[crystal-field] cefA\nbase: cefB\n'));
+    expect(cycle.evalue).toBe('line 2, column 7: cefA would read cefB, which itself depends on cefA: a dependency cycle');
+    expect(s.state.serialize()).toBe(before);
+    const self = errorOf(await run(s, '[crystal-field] cefA\nbase: cefA\n'));
+    expect(self.evalue).toBe('line 2, column 7: cefA cannot read itself');
+  });
+});
+
 describe('sample state', () => {
   it('marks dependants stale when an upstream cell reruns and reruns them in order', async () => {
     const s = createCellSession();

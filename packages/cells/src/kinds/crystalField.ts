@@ -28,10 +28,11 @@ import { defineKind } from './types';
 import { escapeHtml, formatNumber, htmlKeyValue, htmlTable, textTable } from '../render/format';
 
 interface CrystalFieldInput {
+  base?: string;
   ion?: string;
   symmetry?: string;
   unit: string;
-  B: Record<string, number>;
+  B?: Record<string, number>;
   degeneracyTolerance: number;
 }
 
@@ -72,17 +73,22 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
   kind: 'crystal-field',
   summary: 'crystal-field levels, eigenstates (|J, m⟩), ground-doublet g-tensor and classification from Stevens parameters',
   fields: {
+    base: {
+      type: 'reference',
+      kinds: ['crystal-field'],
+      doc: 'An earlier crystal-field result to start from: its ion, symmetry and parameters, with the B given here replacing or adding single parameters (e.g. to vary B20 only). Rerunning the base marks this result stale.',
+    },
     ion: {
       type: 'string',
       maxLength: 10,
       suggestions: ION_NAMES,
       patternText: `a trivalent rare-earth ion (${ION_NAMES.join(', ')})`,
-      doc: "The ion; default: the sample's ion.",
+      doc: "The ion; default: the base's ion, else the sample's ion.",
     },
     symmetry: {
       type: 'choice',
       values: SITE_SYMMETRIES,
-      doc: "Site symmetry used to check the B parameters (z along the principal axis); default: the sample's site symmetry, or none.",
+      doc: "Site symmetry used to check the B parameters (z along the principal axis); default: the base's, else the sample's site symmetry, else none.",
     },
     unit: {
       type: 'choice',
@@ -92,7 +98,6 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
     },
     B: {
       type: 'map',
-      required: true,
       of: {
         type: 'quantity',
         unit: 'meV',
@@ -106,7 +111,7 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
       },
       keyText: 'a Stevens parameter name: B20, B22, B40, B43, B44, B4-3 (or B4m3), B60, B63, B66, ...',
       keySuggestions: CEF_PARAMETER_KEYS,
-      doc: 'Stevens parameters B_n^m (Hutchings convention, θ_n included): H = Σ B_n^m O_n^m. Keys B20 … B66, negative m for sine terms (B4-3 or B4m3).',
+      doc: 'Stevens parameters B_n^m (Hutchings convention, θ_n included): H = Σ B_n^m O_n^m. Keys B20 … B66, negative m for sine terms (B4-3 or B4m3). Required unless base is given.',
     },
     degeneracyTolerance: {
       type: 'quantity',
@@ -117,9 +122,10 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
       doc: 'Eigenvalues closer than this form one level.',
     },
   },
-  reads: ['sample'],
+  reads: ['sample', 'references'],
   writes: 'result',
   check(input, ctx) {
+    if (input.B === undefined && input.base === undefined) ctx.fail('B', undefined, 'Stevens parameters such as "B20: -0.35 meV" (or a base crystal-field result to start from)');
     if (input.ion !== undefined) {
       try {
         getIon(input.ion);
@@ -131,16 +137,19 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
   },
   run(input, ctx) {
     const sample = ctx.sampleIfDefined();
-    if (input.ion === undefined && !sample) ctx.fail('ion', undefined, 'an ion (no [sample] cell ran yet to take it from)');
-    const ion = getIon(input.ion ?? sample!.ion);
-    const symmetry = input.symmetry ?? sample?.siteSymmetry ?? 'none';
+    const base = input.base === undefined ? undefined : ctx.result<CrystalFieldResult>(input.base);
+    const ionName = input.ion ?? base?.ion ?? sample?.ion;
+    if (ionName === undefined) ctx.fail('ion', undefined, 'an ion (no [sample] cell ran yet to take it from)');
+    const ion = getIon(ionName!);
+    const symmetry = input.symmetry ?? base?.symmetry ?? sample?.siteSymmetry ?? 'none';
     let parameters: Record<string, number>;
     try {
-      parameters = { ...normalizeCefParameters(input.B, { unit: 'meV', symmetry }) };
+      // Base parameters (canonical keys, meV) overridden key by key by this cell's B.
+      parameters = { ...normalizeCefParameters({ ...(base?.parametersMeV ?? {}), ...(input.B ?? {}) }, { unit: 'meV', symmetry }) };
     } catch (error) {
-      // The symmetry came from the sample: say so beside the parameter's line.
-      if (error instanceof InputError && input.symmetry === undefined && sample) {
-        throw new InputError(error.field, error.value, `${error.expected}; the symmetry is the sample's`);
+      // The symmetry came from elsewhere: say so beside the parameter's line.
+      if (error instanceof InputError && input.symmetry === undefined && (base || sample)) {
+        throw new InputError(error.field, error.value, `${error.expected}; the symmetry is the ${base ? 'base result' : 'sample'}'s`);
       }
       throw error;
     }

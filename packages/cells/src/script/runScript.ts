@@ -5,6 +5,8 @@
  *   state     a read-only view of the sample state (sample, datasets, results by name)
  *   display   display(x): rich output (a MIME bundle object, an array of records → table, anything → text)
  *   console   log/info/debug → stdout stream, warn/error → stderr stream
+ *   task      task.report(done, total) shows progress in one updating display; task.checkpoint() stops the
+ *             script when the kernel is interrupted (call it in long loops)
  * If the last statement is an expression, its value is the cell's execute_result (as in other notebooks).
  * Variables live for one cell: what is shared between cells is the sample state.
  * Math.random is replaced by an error pointing to physics.random.createRandom(seed): reruns must be identical.
@@ -17,10 +19,14 @@ import { CellError } from '../errors';
 import type { CellOutput, MimeBundle } from '../protocol';
 import { lineMap } from './sourceMap';
 import { htmlTable } from '../render/format';
+import type { ProgressTask } from '../session/progress';
+import { CancelledError } from '@multiplet/physics/errors';
 
 export interface ScriptEnv {
   physics: unknown;
   state: unknown;
+  /** Progress display and cooperative cancellation: task.report(done, total), task.checkpoint(). */
+  task: ProgressTask;
   emit(output: CellOutput): void;
   /** Allocates a display id for display(x, { id: true }) style updates. */
   nextDisplayId(): string;
@@ -121,6 +127,7 @@ export async function runScript(source: string, context: vm.Context, env: Script
   const compiled = compileScript(source);
   context.physics = env.physics;
   context.state = env.state;
+  context.task = { report: env.task.report, checkpoint: env.task.checkpoint };
   context.console = makeConsole(env.emit);
   context.display = (value: unknown) => {
     env.emit({ type: 'display_data', data: bundleFor(value), metadata: {}, displayId: env.nextDisplayId() });
@@ -132,11 +139,13 @@ export async function runScript(source: string, context: vm.Context, env: Script
   } catch (error) {
     throw scriptError(error, compiled, source);
   }
+  env.task.finish();
   return value === undefined ? undefined : bundleFor(value);
 }
 
 function scriptError(error: unknown, compiled: Compiled, source: string): CellError {
   if (error instanceof CellError) return error;
+  if (error instanceof CancelledError) return new CellError('CellInterrupted', 'interrupted: the script was stopped at task.checkpoint()');
   const e = error as { name?: unknown; message?: unknown; stack?: unknown };
   const name = typeof e?.name === 'string' ? e.name : 'Error';
   const message = typeof e?.message === 'string' ? e.message : String(error);

@@ -12,6 +12,7 @@ import { CellError } from '../errors';
 import { splitCell } from '../syntax/header';
 import { SampleState } from '../state';
 import { runTypedCell, renderRecord } from './typed';
+import { createProgressTask } from './progress';
 import { runScript, createScriptContext } from '../script/runScript';
 import { PHYSICS_SCOPE } from '../script/scope';
 import { frozenCopy } from '../json';
@@ -137,6 +138,7 @@ export function createCellSession(options: CellSessionOptions = {}): MultipletSe
           const value = await runScript(code, scriptContext, {
             physics: PHYSICS_SCOPE,
             state: stateView(),
+            task: createProgressTask('script', nextDisplayId('progress'), execOptions.emit, execOptions.cancelFlag),
             emit: execOptions.emit,
             nextDisplayId: () => nextDisplayId('display'),
           });

@@ -3,7 +3,6 @@
  * touches the state: the caller commits the returned record, so a failure anywhere leaves the state unchanged.
  */
 import { createRandom } from '@multiplet/physics/random';
-import { createTask } from '@multiplet/physics/progress';
 import { InputError, CancelledError } from '@multiplet/physics/errors';
 import { CellError, inputError, type SourcePosition } from '../errors';
 import { parseBody, formatPath } from '../syntax/body';
@@ -16,6 +15,7 @@ import type { SampleState, ResultRecord } from '../state';
 import { CELLS_PACKAGE, CELLS_VERSION } from '../version';
 import { RESULT_MIME_TYPE, RESULT_MIME_VERSION, VEGALITE_MIME_TYPE, type ResultControl, type ResultPayload } from '../mime';
 import type { CellOutput, MimeBundle } from '../protocol';
+import { createProgressTask } from './progress';
 
 /** Fields every kind accepts besides its own. */
 export const COMMON_FIELDS: Schema = {
@@ -109,31 +109,16 @@ export async function runTypedCell(source: string, header: CellHeader, body: str
   const reads = new Set(references);
   const sampleName = env.state.sampleName;
   if (kind.reads.includes('sample') && sampleName !== null && sampleName !== header.name) reads.add(sampleName);
-  env.state.checkAcyclic(header.name, [...reads]);
+  try {
+    env.state.checkAcyclic(header.name, [...reads]);
+  } catch (error) {
+    // Point at the reference field that closes the loop.
+    if (!(error instanceof CellError)) throw error;
+    const loopField = Object.keys(raw).find((k) => raw[k] === error.given) ?? '';
+    throw new CellError(error.ename, error.detail, { position: positionOf(loopField), field: loopField || error.field, given: error.given, expected: error.expected });
+  }
 
-  let progressShown = false;
-  let lastProgress = 0;
-  const progressText = (done: number, total: number, phase?: string): MimeBundle => {
-    const fraction = total > 0 ? Math.min(1, Math.max(0, done / total)) : 0;
-    const bar = '#'.repeat(Math.round(fraction * 30)).padEnd(30, '.');
-    return { 'text/plain': `${header.name}: [${bar}] ${Math.round(fraction * 100)}%${phase ? ` ${phase}` : ''}` };
-  };
-  const task = createTask(
-    (done, total, phase) => {
-      // Intermediate updates are throttled by wall time; only the final "done" text is kept in the notebook,
-      // so outputs stay identical between hosts.
-      const now = performance.now();
-      if (!progressShown) {
-        progressShown = true;
-        lastProgress = now;
-        env.emit({ type: 'display_data', data: progressText(done, total, phase), metadata: {}, displayId: env.progressDisplayId });
-      } else if (now - lastProgress > 250) {
-        lastProgress = now;
-        env.emit({ type: 'update_display_data', data: progressText(done, total, phase), metadata: {}, displayId: env.progressDisplayId });
-      }
-    },
-    env.cancelFlag ?? new Int32Array(new SharedArrayBuffer(4)),
-  );
+  const task = createProgressTask(header.name, env.progressDisplayId, env.emit, env.cancelFlag);
 
   const ctx: RunContext = {
     name: header.name,
@@ -176,7 +161,7 @@ export async function runTypedCell(source: string, header: CellHeader, body: str
   } catch (error) {
     throw toCellError(error, positionOf, headerPosition);
   }
-  if (progressShown) env.emit({ type: 'update_display_data', data: { 'text/plain': `${header.name}: done` }, metadata: {}, displayId: env.progressDisplayId });
+  task.finish();
 
   const inputsJson = toJsonValue(inputs, 'inputs') as Record<string, JsonValue>;
   const record: ResultRecord = {
