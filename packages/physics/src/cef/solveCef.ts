@@ -55,7 +55,8 @@ export interface CefSolution {
   levels: CefLevel[];
   /** Null unless the ground level is exactly two-fold degenerate. */
   groundDoublet: GroundDoublet | null;
-  /** 'Ising' | 'XY' | 'Heisenberg' | 'intermediate' (ground doublets), 'singlet', 'triplet', 'quartet', 'multiplet'. */
+  /** 'Ising' | 'XY' | 'Heisenberg' | 'intermediate' | 'nonmagnetic' (ground doublets), 'singlet', 'triplet', 'quartet',
+   *  'multiplet' (other ground degeneracies). */
   classification: string;
   /** One-line human summary, e.g. "Ising Kramers doublet, g∥ = 19.8, g⊥ = 0.00; next level at 22.1 meV". */
   summary: string;
@@ -76,10 +77,12 @@ export interface SolveCefOptions {
 
 /**
  * Anisotropy classes from the ratio ρ = g∥/g⊥ of a doublet (our own thresholds, stated here once):
- * Ising ρ > 2 (including g⊥ = 0), XY ρ < 1/2, Heisenberg 0.8 ≤ ρ ≤ 1.25, otherwise intermediate.
+ * Ising ρ ≥ 2 (including g⊥ = 0), XY ρ ≤ 1/2, Heisenberg 0.8 ≤ ρ ≤ 1.25, otherwise intermediate; 'nonmagnetic' when
+ * both g values vanish (below 1e-9).
  * With these, Dy2Ti2O7/Ho2Ti2O7-like doublets are Ising and Er2Ti2O7/Yb2Ti2O7-like (ρ ≈ 0.4) are XY.
  */
-export function classifyDoublet(gParallel: number, gPerpendicular: number): 'Ising' | 'XY' | 'Heisenberg' | 'intermediate' {
+export function classifyDoublet(gParallel: number, gPerpendicular: number): 'Ising' | 'XY' | 'Heisenberg' | 'intermediate' | 'nonmagnetic' {
+  if (Math.max(gParallel, gPerpendicular) < 1e-9) return 'nonmagnetic';
   if (gPerpendicular <= 0.5 * gParallel) return 'Ising';
   if (gParallel <= 0.5 * gPerpendicular) return 'XY';
   const ratio = gParallel / gPerpendicular;
