@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCommand } from '@multiplet/cli/run/command';
 import { OutputCollector, type Notebook } from '@multiplet/cli/run/notebook';
-import { compareText } from '@multiplet/cli/run/compare';
+import { compareText, compareOutputs } from '@multiplet/cli/run/compare';
 
 const SAMPLE = '[sample] host\ncompound: Dy2Ti2O7\nion: Dy3+\nsiteSymmetry: D3d\nmolarMass: 532.8 g/mol\n';
 const CEF = '[crystal-field] cefA\nB:\n  B20: -0.35 meV\n  B40: 1.2e-3 meV\n  B43: 0.01 meV\n';
@@ -129,6 +129,13 @@ describe('output collection mirrors nbclient', () => {
     expect(nb.cells[1]!.outputs).toHaveLength(1);
     c.add(1, { type: 'stream', name: 'stdout', text: 'x' });
     expect(nb.cells[1]!.outputs).toEqual([{ output_type: 'stream', name: 'stdout', text: 'x' }]);
+  });
+
+  it('treats text stored as a list of lines (as Jupyter writes it) like the joined string', () => {
+    const stored = [{ output_type: 'display_data' as const, data: { 'text/plain': ['a 1\n', 'b 2'] }, metadata: {} }, { output_type: 'stream' as const, name: 'stdout', text: ['x\n', 'y\n'] }];
+    const fresh = [{ output_type: 'display_data' as const, data: { 'text/plain': 'a 1\nb 2' }, metadata: {} }, { output_type: 'stream' as const, name: 'stdout', text: 'x\ny\n' }];
+    expect(compareOutputs(stored, fresh, 1e-9)).toBeUndefined();
+    expect(compareOutputs(stored, [fresh[0]!], 1e-9)).toMatch(/stored 2 outputs \(display_data, stream\), now 1/);
   });
 
   it('compares text with numbers to a relative tolerance', () => {

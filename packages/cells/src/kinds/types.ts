@@ -61,6 +61,11 @@ export interface RunContext {
   readonly random: Random;
   /** Progress (shown with update_display_data) and cooperative cancellation. */
   readonly task: LongTask;
+  /**
+   * Let the host's event loop run (the kernel serves interrupt and comm messages on the same thread), then throw
+   * CancelledError if an interrupt arrived. Long kinds call `await ctx.yieldNow()` every ~50 ms of work.
+   */
+  yieldNow(): Promise<void>;
   /** Directory that relative file names are resolved against (the notebook's directory). */
   readonly notebookDir: string;
   /** Throw a CellInputError positioned at `fieldPath` (e.g. "B.B20"). */

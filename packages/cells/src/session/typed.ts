@@ -126,6 +126,10 @@ export async function runTypedCell(source: string, header: CellHeader, body: str
     seed,
     random: createRandom(seed),
     task,
+    async yieldNow() {
+      await new Promise<void>((resolve) => setImmediate(resolve));
+      task.checkpoint();
+    },
     notebookDir: env.notebookDir,
     fail,
     positionOf,

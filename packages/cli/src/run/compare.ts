@@ -69,6 +69,15 @@ export function compareJson(stored: unknown, fresh: unknown, tolerance: number, 
   return stored === fresh ? undefined : `${path || 'value'}: stored ${JSON.stringify(stored)?.slice(0, 40)}, now ${JSON.stringify(fresh)?.slice(0, 40)}`;
 }
 
+/** nbformat stores text outputs as a string or a list of lines (Jupyter writes lists): compare them joined. */
+function joinLines(data: unknown): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [mime, value] of Object.entries((data ?? {}) as Record<string, unknown>)) {
+    out[mime] = Array.isArray(value) && value.every((v) => typeof v === 'string') && !mime.includes('json') ? value.join('') : value;
+  }
+  return out;
+}
+
 /** First difference between a cell's stored and recomputed outputs, or undefined when reproduced. */
 export function compareOutputs(stored: NotebookOutput[], fresh: NotebookOutput[], tolerance: number): string | undefined {
   if (stored.length !== fresh.length) {
@@ -88,8 +97,8 @@ export function compareOutputs(stored: NotebookOutput[], fresh: NotebookOutput[]
         d = a.ename !== b.ename ? `error ${String(a.ename)} vs ${String(b.ename)}` : compareText(a.evalue as string, b.evalue as string, tolerance);
         break;
       default: {
-        const da = (a.data ?? {}) as Record<string, unknown>;
-        const db = (b.data ?? {}) as Record<string, unknown>;
+        const da = joinLines(a.data);
+        const db = joinLines(b.data);
         d = compareJson(da, db, tolerance, 'data') ?? compareJson(a.metadata ?? {}, b.metadata ?? {}, tolerance, 'metadata');
       }
     }
