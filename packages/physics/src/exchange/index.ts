@@ -10,3 +10,5 @@ export * from './microscopicCoupling';
 export * from './pseudospinCouplings';
 export * from './effectiveExchange';
 export type { Matrix3 } from './matrix3';
+export * from './exchangeScan';
+export * from './curieWeiss';
