@@ -7,7 +7,7 @@ export * from './protocol';
 export { createCellSession, type MultipletSession, type CellSessionOptions, type RerunReport } from './session/session';
 export { CONTROLS_TARGET, STATE_TARGET, stateSnapshot, type StateSnapshot } from './session/comms';
 export { setFieldInSource } from './session/writeback';
-export { CELL_KINDS, getKind, kindNames, defineKind } from './kinds';
+export { CELL_KINDS, getKind, kindNames, defineKind, registerKind } from './kinds';
 export type { CellKind, AnyCellKind, RunContext, RenderInfo, RenderedResult, SampleResult, DatasetResult } from './kinds';
 export type { FieldSpec, Schema, ControlSpec } from './schema';
 export { SampleState, STATE_FORMAT, STATE_VERSION, parseSavedState, type ResultRecord, type StateData } from './state';

@@ -9,8 +9,20 @@ import { crystalFieldKind } from './crystalField';
 
 const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind];
 
+const REGISTRY = new Map(KINDS.map((k) => [k.kind, k]));
+
 /** Every registered kind by name. */
-export const CELL_KINDS: ReadonlyMap<string, AnyCellKind> = new Map(KINDS.map((k) => [k.kind, k]));
+export const CELL_KINDS: ReadonlyMap<string, AnyCellKind> = REGISTRY;
+
+/**
+ * Add a kind at run time (tests, or a package that extends Multiplet). Kinds of this repository are listed in
+ * KINDS above instead. Refuses a bad or already used name.
+ */
+export function registerKind(kind: AnyCellKind): void {
+  if (!/^[a-z][a-z0-9]*(?:-[a-z0-9]+)*$/.test(kind.kind)) throw new Error(`registerKind: "${kind.kind}" is not a lower-case hyphenated kind name`);
+  if (REGISTRY.has(kind.kind)) throw new Error(`registerKind: a kind named "${kind.kind}" is already registered`);
+  REGISTRY.set(kind.kind, kind);
+}
 
 /** Look up a kind by its header name. */
 export function getKind(name: string): AnyCellKind | undefined {
