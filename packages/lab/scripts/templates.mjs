@@ -47,9 +47,8 @@ export function templateText(kind, describeField) {
     const status = spec.required ? 'required' : spec.default !== undefined ? `default ${spec.default}` : 'optional';
     lines.push(`# ${key} (${status}): ${spec.doc} Expects ${describeField(spec)}.`.replace(/\n/g, ' '));
     if (spec.type === 'map' && spec.keySuggestions?.length && example(spec.of) !== null) {
-      const entry = `  ${spec.keySuggestions[0]}: ${example(spec.of)}`;
-      if (spec.required) lines.push(`${key}:`, entry);
-      else lines.push(`# ${key}:`, `#${entry}`);
+      // A map of named parameters (the B_n^m of a crystal field) is what the kind is about: always written out.
+      lines.push(`${key}:`, `  ${spec.keySuggestions[0]}: ${example(spec.of)}`);
       continue;
     }
     const value = example(spec);

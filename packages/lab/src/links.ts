@@ -11,7 +11,15 @@ import { PromiseDelegate, type JSONObject } from '@lumino/coreutils';
 import type { IDisposable } from '@lumino/disposable';
 import { Signal, type ISignal } from '@lumino/signaling';
 import type { ControlChannel } from './controls';
-import { CONTROLS_COMM_TARGET, parseSnapshot, STATE_COMM_TARGET, type ResultControl, type ResultPayload, type StateSnapshot } from './protocol';
+import {
+  CONTROLS_COMM_TARGET,
+  parseSnapshot,
+  RESULT_MIME_TYPE,
+  STATE_COMM_TARGET,
+  type ResultControl,
+  type ResultPayload,
+  type StateSnapshot,
+} from './protocol';
 
 /** How long a request on a comm may wait for its answer (a rerun of dependants can take a while). */
 const REQUEST_TIMEOUT_MS = 120_000;
@@ -36,11 +44,43 @@ export function findResultCell(panel: NotebookPanel, result: string): number {
   return panel.content.widgets.findIndex((cell) => cell.model.type === 'code' && cellHeader(cell.model.sharedModel.getSource())?.name === result);
 }
 
+/** Result name of an output bundle of ours, or null. */
+function resultName(data: unknown): string | null {
+  const payload = (data as Record<string, unknown> | undefined)?.[RESULT_MIME_TYPE] as Record<string, unknown> | undefined;
+  return typeof payload?.name === 'string' ? payload.name : null;
+}
+
+/**
+ * Apply an `update_display_data` of a result to the notebook's outputs of that result. JupyterLab's output area
+ * updates by display id only outputs that arrived as `display_data`; the kernel sends results as `execute_result`
+ * (with the display id in `transient`), so the extension replaces them itself: every output showing the same
+ * result name (the kernel keeps one display id list per result name, so these are the same outputs).
+ */
+export function applyResultUpdate(panel: NotebookPanel, data: Record<string, unknown>, metadata: Record<string, unknown>): number {
+  const name = resultName(data);
+  if (name === null) return 0;
+  let updated = 0;
+  for (const cell of panel.content.widgets) {
+    if (cell.model.type !== 'code') continue;
+    const outputs = (cell.model as unknown as { outputs: { length: number; get(i: number): { toJSON(): Record<string, unknown> }; set(i: number, value: unknown): void } }).outputs;
+    for (let index = 0; index < outputs.length; index++) {
+      const output = outputs.get(index).toJSON();
+      if (output.output_type !== 'execute_result' || resultName(output.data) !== name) continue;
+      outputs.set(index, { ...output, data, metadata });
+      updated++;
+    }
+  }
+  return updated;
+}
+
 /** The comms of one kernel session and what came over them. */
 export class SessionLink implements IDisposable {
-  constructor(sessionContext: ISessionContext) {
+  /** `onResultUpdate` receives every `update_display_data` of the kernel that carries a Multiplet result. */
+  constructor(sessionContext: ISessionContext, onResultUpdate: (data: Record<string, unknown>, metadata: Record<string, unknown>) => void) {
     this._sessionContext = sessionContext;
+    this._onResultUpdate = onResultUpdate;
     sessionContext.kernelChanged.connect(this._onKernelChanged, this);
+    this._watch(sessionContext.session?.kernel ?? null);
   }
 
   /** A new snapshot of the sample state arrived (null: the kernel changed or restarted). */
@@ -99,10 +139,24 @@ export class SessionLink implements IDisposable {
     if (this._disposed) return;
     this._disposed = true;
     this._closeComms('the notebook was closed');
+    this._watch(null);
     Signal.clearData(this);
   }
 
+  private _watch(kernel: Kernel.IKernelConnection | null): void {
+    this._watched?.iopubMessage.disconnect(this._onIOPub, this);
+    this._watched = kernel;
+    kernel?.iopubMessage.connect(this._onIOPub, this);
+  }
+
+  private _onIOPub(_: Kernel.IKernelConnection, msg: KernelMessage.IIOPubMessage): void {
+    if (msg.header.msg_type !== 'update_display_data') return;
+    const content = msg.content as { data?: Record<string, unknown>; metadata?: Record<string, unknown> };
+    if (content.data && resultName(content.data) !== null) this._onResultUpdate(content.data, content.metadata ?? {});
+  }
+
   private _onKernelChanged(): void {
+    this._watch(this._sessionContext.session?.kernel ?? null);
     this._closeComms('the kernel changed');
     this._snapshot = null;
     this._stateChanged.emit(null);
@@ -173,6 +227,8 @@ export class SessionLink implements IDisposable {
   }
 
   private _sessionContext: ISessionContext;
+  private _onResultUpdate: (data: Record<string, unknown>, metadata: Record<string, unknown>) => void;
+  private _watched: Kernel.IKernelConnection | null = null;
   private _comms = new Map<string, Kernel.IComm>();
   private _pending = new Map<string, PendingRequest[]>();
   private _snapshot: StateSnapshot | null = null;
@@ -185,6 +241,7 @@ export class NotebookLinks implements ControlChannel {
   constructor(tracker: INotebookTracker) {
     this._tracker = tracker;
     tracker.widgetAdded.connect((_, panel) => {
+      this.linkFor(panel);
       panel.disposed.connect(() => {
         this._links.get(panel)?.dispose();
         this._links.delete(panel);
@@ -199,7 +256,7 @@ export class NotebookLinks implements ControlChannel {
   linkFor(panel: NotebookPanel): SessionLink {
     let link = this._links.get(panel);
     if (!link) {
-      link = new SessionLink(panel.sessionContext);
+      link = new SessionLink(panel.sessionContext, (data, metadata) => applyResultUpdate(panel, data, metadata));
       this._links.set(panel, link);
     }
     return link;

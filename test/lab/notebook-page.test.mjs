@@ -1,0 +1,199 @@
+// The standalone notebook page in headless chromium, on the real Multiplet kernel: run a notebook, see the result
+// views (level diagram), move a B_n^m control, watch the sample-state panel mark and clear stale results, insert
+// a template from the command palette, run it, break it, and read the precise error. Screenshots of each step go
+// to test-artifacts/lab/; the one with the interactive crystal-field cell is copied to docs/screenshot-lab.png.
+import assert from 'node:assert/strict';
+import { copyFileSync, mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { after, before, test } from 'node:test';
+import { openBrowser } from './browser.mjs';
+import { repoRoot, startLab } from './server.mjs';
+
+const artifacts = join(repoRoot, 'test-artifacts/lab');
+mkdirSync(artifacts, { recursive: true });
+
+let lab;
+let browser;
+let page;
+
+const cefOutput = '.jp-Multiplet-result[data-kind="crystal-field"][data-result-name="cefA"]';
+const stateResult = (name) => `.jp-Multiplet-statePanel li.jp-Multiplet-stateResult[data-name="${name}"]`;
+const errorOutputs = '.jp-OutputArea-output[data-mime-type="application/vnd.jupyter.stderr"], .jp-RenderedText[data-mime-type="application/vnd.jupyter.stderr"]';
+
+async function shot(name) {
+  const path = join(artifacts, `${name}.png`);
+  await page.screenshot({ path });
+  return path;
+}
+
+/** Tick positions of the level diagram: what changes when the levels move. */
+async function levelMarks() {
+  return page.$$eval(`${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg .role-mark path, ${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg .role-mark rect`, (marks) =>
+    marks.map((m) => m.getAttribute('transform') ?? m.getAttribute('d') ?? m.getAttribute('y') ?? ''),
+  );
+}
+
+async function openNotebook(url) {
+  await page.goto(url);
+  await page.waitForSelector('body[data-multiplet-ready="true"], body[data-multiplet-error]', { state: 'attached', timeout: 90_000 });
+  const problem = await page.evaluate(() => document.body.dataset.multipletError ?? null);
+  assert.equal(problem, null, `the page did not start: ${problem}`);
+}
+
+before(async () => {
+  lab = await startLab([join(repoRoot, 'test/lab/notebooks')]);
+  browser = await openBrowser();
+  page = await browser.context.newPage();
+});
+
+after(async () => {
+  await browser?.close();
+  await lab?.stop();
+});
+
+test('the page loads the prebuilt extension through module federation', async () => {
+  assert.ok(lab.pages['bench.ipynb'], `multiplet lab printed no page for bench.ipynb:\n${lab.output()}`);
+  await openNotebook(lab.pages['bench.ipynb']);
+  const plugins = await page.evaluate(() => window.multipletPage.extension.plugins.map((p) => p.id));
+  assert.deepEqual(plugins, ['@multiplet/lab:results', '@multiplet/lab:state-panel', '@multiplet/lab:templates']);
+  // The extension's own stylesheet came with it (./style of the remote container).
+  const controlsGrid = await page.evaluate(() => {
+    const probe = document.createElement('div');
+    probe.className = 'jp-Multiplet-controls';
+    document.body.appendChild(probe);
+    const display = getComputedStyle(probe).display;
+    probe.remove();
+    return display;
+  });
+  assert.equal(controlsGrid, 'grid');
+  assert.ok(await page.isVisible('#jp-Multiplet-statePanel'), 'the sample-state panel is in the right area');
+  await shot('01-opened');
+});
+
+test('run all cells: no error output, result views and the level diagram rendered', async () => {
+  await page.click('.jp-Toolbar-item >> text=Run All Cells');
+  await page.waitForSelector(`${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg`, { timeout: 120_000 });
+  assert.equal(await page.locator(errorOutputs).count(), 0, 'no error outputs');
+  assert.equal(await page.locator('.jp-Multiplet-result[data-kind="sample"][data-result-name="host"]').count(), 1);
+  // The level diagram: an SVG with one tick per level (Dy3+, J = 15/2, Kramers: 8 doublets) and their labels.
+  const marks = await levelMarks();
+  assert.ok(marks.length >= 8, `level diagram marks: ${marks.length}`);
+  // Tables with units in the headers.
+  const headers = await page.$$eval(`${cefOutput} table.jp-Multiplet-table th`, (cells) => cells.map((c) => c.textContent));
+  assert.ok(headers.includes('E (meV)'), `table headers: ${headers.join(' | ')}`);
+  // Controls: one labelled slider and number field per B_n^m of the cell.
+  const labels = await page.$$eval(`${cefOutput} .jp-Multiplet-controlLabel`, (ls) => ls.map((l) => l.textContent));
+  assert.deepEqual(labels, ['B20 (meV)', 'B40 (meV)', 'B43 (meV)', 'B60 (meV)', 'B63 (meV)', 'B66 (meV)']);
+  const slider = page.getByLabel('B20 (meV)', { exact: true });
+  assert.equal(await slider.getAttribute('type'), 'range');
+  // The state panel lists the sample, and both results with the cell that made them.
+  await page.waitForSelector(stateResult('cefA'));
+  assert.match(await page.textContent(stateResult('cefA')), /made by cell 3/);
+  assert.match(await page.textContent('.jp-Multiplet-stateCompound'), /Dy2Ti2O7/);
+  await page.locator(cefOutput).scrollIntoViewIfNeeded();
+  const path = await shot('02-run-all');
+  copyFileSync(path, join(repoRoot, 'docs/screenshot-lab.png'));
+});
+
+test('moving B20 with the keyboard reruns the cell and redraws the level diagram in place', async () => {
+  const before = await levelMarks();
+  const summaryBefore = await page.textContent(`${cefOutput} .jp-Multiplet-summary`);
+  const slider = page.getByLabel('B20 (meV)', { exact: true });
+  await slider.focus();
+  for (let i = 0; i < 40; i++) await page.keyboard.press('ArrowRight');
+  await page.waitForFunction(
+    ([selector, text]) => document.querySelector(selector)?.textContent !== text,
+    [`${cefOutput} .jp-Multiplet-summary`, summaryBefore],
+    { timeout: 60_000 },
+  );
+  await page.waitForSelector(`${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg`);
+  const after = await levelMarks();
+  assert.notDeepEqual(after, before, 'the level diagram changed');
+  // Same output, updated in place (update_display_data): still one crystal-field view, focus kept on the slider.
+  assert.equal(await page.locator(cefOutput).count(), 1);
+  assert.equal(await page.evaluate(() => document.activeElement?.getAttribute('aria-valuetext') !== null), true);
+  const value = Number(await page.getByLabel('B20 value in meV').inputValue());
+  assert.ok(value > -0.25, `B20 moved up from -0.25 meV, now ${value}`);
+  // The notebook text is untouched until asked; then it holds the new value.
+  const cellText = () => page.evaluate(() => window.multipletPage.tracker.currentWidget.content.widgets[2].model.sharedModel.getSource());
+  assert.match(await cellText(), /B20: -0\.25 meV/);
+  await page.click(`${cefOutput} .jp-Multiplet-writeBack`);
+  await page.waitForFunction(() => !/B20: -0\.25 meV/.test(window.multipletPage.tracker.currentWidget.content.widgets[2].model.sharedModel.getSource()));
+  assert.doesNotMatch(await cellText(), /B20: -0\.25 meV/);
+  assert.equal(await page.locator(errorOutputs).count(), 0);
+  await shot('03-control-moved');
+});
+
+test('rerunning the sample marks the crystal field stale in the panel; Rerun stale clears it', async () => {
+  await page.waitForSelector(`${stateResult('cefA')}[data-stale="false"]`);
+  // Run the sample cell again from its editor (Shift+Enter).
+  await page.click('.jp-Notebook .jp-Cell:nth-child(2) .cm-content');
+  await page.keyboard.press('Shift+Enter');
+  await page.waitForSelector(`${stateResult('cefA')}[data-stale="true"]`, { timeout: 60_000 });
+  assert.match(await page.textContent(stateResult('cefA')), /stale/);
+  await shot('04-stale');
+  await page.click('.jp-Multiplet-stateButton >> text=Rerun stale');
+  await page.waitForSelector(`${stateResult('cefA')}[data-stale="false"]`, { timeout: 60_000 });
+  assert.equal(await page.locator('.jp-Multiplet-statePanel .jp-Multiplet-staleMark').count(), 0);
+  assert.equal(await page.locator(errorOutputs).count(), 0);
+  await shot('05-stale-cleared');
+});
+
+test('insert a crystal-field template from the palette, run it, break it: precise error, state unchanged', async () => {
+  await page.click('.jp-Notebook .jp-Cell:nth-child(3) .jp-InputPrompt');
+  await page.keyboard.press('Control+Shift+C');
+  await page.waitForSelector('.jp-ModalCommandPalette:not(.lm-mod-hidden) input', { state: 'visible' });
+  await page.keyboard.type('Insert crystal-field');
+  await page.keyboard.press('Enter');
+  const inserted = () => page.evaluate(() => window.multipletPage.tracker.currentWidget.content.activeCell.model.sharedModel.getSource());
+  await page.waitForFunction(() => /^\[crystal-field\] crystalField1/.test(window.multipletPage.tracker.currentWidget.content.activeCell?.model.sharedModel.getSource() ?? ''));
+  const template = await inserted();
+  assert.match(template, /^# B \(\w+\): Stevens parameters/m);
+  assert.match(template, /^B:\n {2}B20: 1 meV$/m);
+  await shot('06-template-inserted');
+  await page.keyboard.press('Shift+Enter');
+  await page.waitForSelector(stateResult('crystalField1'), { timeout: 60_000 });
+  await page.waitForSelector('.jp-Multiplet-result[data-result-name="crystalField1"] figure[data-rendered="true"] svg');
+  const stateBefore = await page.textContent('.jp-Multiplet-stateResults');
+
+  // Break it: a voltage where an energy belongs.
+  const broken = template.replace(/B20: 1 meV/, 'B20: 1 mV');
+  assert.notEqual(broken, template);
+  await page.click('.jp-Notebook .jp-Cell.jp-mod-active .cm-content');
+  await page.keyboard.press('Control+A');
+  await page.keyboard.insertText(broken);
+  await page.keyboard.press('Shift+Enter');
+  const error = page.locator(errorOutputs).first();
+  await error.waitFor({ timeout: 60_000 });
+  const message = await error.textContent();
+  // The error names the line and column of the value, the field path, what was given and what was expected.
+  const lines = broken.split('\n');
+  const line = lines.findIndex((l) => l.includes('B20: 1 mV')) + 1;
+  const column = lines[line - 1].indexOf('1 mV') + 1;
+  assert.match(message, new RegExp(`line ${line}, column ${column}: B\\.B20: got "1 mV", expected a quantity [^;]*meV`));
+  // A failing cell changes nothing in the sample state.
+  await page.click('.jp-Multiplet-stateButton >> text=Refresh');
+  await page.waitForTimeout(500);
+  assert.equal(await page.textContent('.jp-Multiplet-stateResults'), stateBefore);
+  await shot('07-broken-template');
+});
+
+test('dark theme: the result view follows it', async () => {
+  await openNotebook(lab.pages['bench.ipynb'] + '&theme=dark');
+  await page.click('.jp-Toolbar-item >> text=Run All Cells');
+  await page.waitForSelector(`${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg`, { timeout: 120_000 });
+  const colours = await page.evaluate((selector) => {
+    const output = document.querySelector(selector);
+    const text = output.querySelector('svg text');
+    return { body: getComputedStyle(document.body).backgroundColor, label: text ? getComputedStyle(text).fill : '', theme: document.body.dataset.jpThemeLight };
+  }, cefOutput);
+  assert.equal(colours.theme, 'false');
+  // Light text on the dark layout: the vega "dark" theme, not the default black labels.
+  const channels = (css) => (css.match(/\d+/g) ?? []).slice(0, 3).map(Number);
+  assert.ok(channels(colours.label).every((c) => c > 128), `axis label colour ${colours.label}`);
+  await shot('08-dark');
+});
+
+test('no browser console errors on any page', () => {
+  assert.deepEqual(browser.consoleErrors, []);
+});
