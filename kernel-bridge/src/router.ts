@@ -54,6 +54,7 @@ export class KernelRouter {
   private cancelFlag: Int32Array | undefined;
   private readonly replays = new ReplayGuard();
   private shuttingDown = false;
+  private shellParent: JsonObject | undefined;
 
   constructor(private readonly options: RouterOptions) {}
 
@@ -111,7 +112,14 @@ export class KernelRouter {
   private async pump(): Promise<void> {
     for (let next = this.shellQueue.shift(); next; next = this.shellQueue.shift()) {
       if (this.aborted.delete(next.message)) await this.abortReply(next.message);
-      else await this.handle(next.message, 'shell');
+      else {
+        this.shellParent = next.message.header;
+        try {
+          await this.handle(next.message, 'shell');
+        } finally {
+          this.shellParent = undefined;
+        }
+      }
     }
   }
 
@@ -171,6 +179,7 @@ export class KernelRouter {
           for (const queued of this.shellQueue) if (queued.message.header.msg_type === 'execute_request') this.aborted.add(queued.message);
         },
         interrupt: () => this.interrupt(),
+        currentShellParent: () => this.shellParent,
         requestShutdown: (restart) => {
           shutdownRequested = restart;
         },

@@ -201,6 +201,19 @@ describe('comms', () => {
     expect(describeSent(h.forRequest(close))).toEqual(['iopub:status:busy', 'iopub:status:idle']);
   });
 
+  it('parents what the session sends on a comm to the request being handled', async () => {
+    const h = createHarness();
+    const open = h.request('shell', 'comm_open', { comm_id: 'c2', target_name: 'test.echo', data: {} });
+    const push = h.request('shell', 'execute_request', { code: 'push now' });
+    await h.router.drained();
+    const pushed = h.forRequest(push).find((s) => s.message.header.msg_type === 'comm_msg');
+    expect(pushed?.message.content).toEqual({ comm_id: 'c2', data: { pushed: 'now' } });
+    // Outside any request, the latest request on the comm is the parent.
+    h.session.hosts.get('c2')!.send({ late: true });
+    await h.router.drained();
+    expect(h.forRequest(open).filter((s) => s.message.header.msg_type === 'comm_msg').map((s) => s.message.content.data)).toEqual([{ late: true }]);
+  });
+
   it('answers an unknown or refused target with comm_close', async () => {
     const h = createHarness();
     const unknown = h.request('shell', 'comm_open', { comm_id: 'u', target_name: 'nope', data: {} });

@@ -6,6 +6,7 @@
  *   value TEXT      → execute_result text/plain TEXT
  *   named TEXT      → execute_result with display id r-TEXT
  *   show TEXT       → display_data (display id "d1"), then update_display_data
+ *   push TEXT       → sends {pushed: TEXT} on every open comm
  *   clear           → clear_output
  *   fail TEXT       → error outcome
  *   spin            → cooperative loop until the cancel flag is set (then an Interrupted error)
@@ -49,6 +50,9 @@ export function createSessionDouble(): SessionDouble {
         case 'show':
           options.emit({ type: 'display_data', data: { 'text/plain': text }, metadata: {}, displayId: 'd1' });
           options.emit({ type: 'update_display_data', data: { 'text/plain': text + '!' }, metadata: {}, displayId: 'd1' });
+          return { status: 'ok' };
+        case 'push':
+          for (const host of hosts.values()) host.send({ pushed: text });
           return { status: 'ok' };
         case 'clear':
           options.emit({ type: 'clear_output', wait: false });

@@ -35,6 +35,7 @@ export const commOpen: Handler = async (ctx) => {
   const registry = ctx.state.comms;
   const publish = ctx.publish;
   const log = ctx.log;
+  const currentShellParent = ctx.currentShellParent;
   const host = {
     send(payload: unknown) {
       const comm = registry.get(commId);
@@ -42,7 +43,9 @@ export const commOpen: Handler = async (ctx) => {
         log(`comm ${commId}: the session sent on a closed comm; dropped`);
         return;
       }
-      publish('comm_msg', { comm_id: commId, data: payload ?? {} }, comm.parent);
+      // Parented like the kernel's other output: to the request being handled (an execute that pushed a state
+      // snapshot, a comm_msg that asked for one), else to the latest request on this comm.
+      void publish('comm_msg', { comm_id: commId, data: payload ?? {} }, currentShellParent() ?? comm.parent);
     },
   };
   let handler;

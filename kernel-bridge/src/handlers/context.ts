@@ -41,6 +41,8 @@ export interface HandlerContext {
   cancellable<T>(work: (cancelFlag: Int32Array) => Promise<T>): Promise<T>;
   /** Reply to every execute_request still waiting in the shell queue with status "aborted" (stop_on_error). */
   abortQueuedExecutes(): void;
+  /** Header of the shell request being handled right now (the parent for comm messages the session sends). */
+  currentShellParent(): JsonObject | undefined;
   /** Interrupt the running cancellable task, if any. */
   interrupt(): void;
   /** Ask the host to shut down once this request's idle status is out. */
