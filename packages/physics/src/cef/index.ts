@@ -19,3 +19,5 @@ export { wignerD, wignerSmallD, eulerAnglesFromMatrix, rotationMatrixFromEuler, 
 export { cubicToTrigonal, TRIGONAL_FRAME_OF_CUBIC } from './cubicToTrigonal';
 export { stevensToWybourne, wybourneToStevens, stevensWybourneFactor } from './wybourne';
 export { llwParameters, LLW_FACTORS } from './leaLeaskWolf';
+export { pointChargeParameters, pointChargeCoefficients, type PointCharge, type PointChargeOptions } from './pointCharge';
+export { scaleCefParameters, type ScaleOptions } from './scaleParameters';

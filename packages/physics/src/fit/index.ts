@@ -12,3 +12,8 @@ export type { MultiStartOptions, MultiStartResult, FitMinimum } from './multiSta
 export { ensembleSampler, integratedAutocorrelationTime } from './ensembleSampler';
 export type { EnsembleSamplerOptions, EnsembleSamplerResult, EnsembleStart } from './ensembleSampler';
 export { solveAssignment } from './solveAssignment';
+export { fitCef, cefLeastSquaresProblem, describeCefSolution } from './fitCef';
+export type { FitCefOptions, CefFitSolution, CefFitReport, CefFitSpec, PeakObservation, SpectrumObservation, PeakAssignment } from './fitCef';
+export { sampleCefPosterior } from './sampleCefPosterior';
+export type { SampleCefPosteriorOptions, CefPosterior, PosteriorSummary } from './sampleCefPosterior';
+export { CefFitModel } from './cef/cefFitModel';
