@@ -6,8 +6,9 @@ import type { AnyCellKind } from './types';
 import { sampleKind } from './sample';
 import { dataKind } from './data';
 import { crystalFieldKind } from './crystalField';
+import { exchangeKind } from './exchange';
 
-const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind];
+const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind, exchangeKind];
 
 const REGISTRY = new Map(KINDS.map((k) => [k.kind, k]));
 

@@ -1,0 +1,68 @@
+/**
+ * The `exchange` cell kind: after a crystal-field cell, the couplings to first and second order with the two-site
+ * check, a scan against the gap as a vega-lite plot, and positioned errors.
+ */
+import { describe, it, expect } from 'vitest';
+import { compile } from 'vega-lite';
+import { createCellSession, run, runOk, errorOf, SAMPLE_CELL } from '../helpers';
+
+const MULTIPLET_MIME = 'application/vnd.multiplet.result+json';
+const VEGA_MIME = 'application/vnd.vegalite.v5+json';
+
+// A |±15/2⟩ Dy3+ doublet (B20 < 0 only) on the Dy2Ti2O7 sample (a = 10.12 Å).
+const DY_CEF = `[crystal-field] cefIsing
+B:
+  B20: -0.1 meV
+`;
+
+describe('[exchange] cell', () => {
+  it('reads a crystal-field result: J_zz = 4J²(−1/3)J_ex + 4·(5/3)D at first order for a pure |±J⟩ doublet; scan plot compiles', async () => {
+    const session = createCellSession({ notebookDir: '.' });
+    await runOk(session, SAMPLE_CELL);
+    await runOk(session, DY_CEF);
+    const r = await runOk(session, `[exchange] exA\ncef: cefIsing\nisotropic: 0.001 meV\ndipolar: true\ncefScale: 0.5 .. 2 / 3 log\n`);
+    const payload = r.data[MULTIPLET_MIME] as { result: Record<string, any> };
+    const result = payload.result;
+    // Derivations: test/physics/exchange/effectiveExchange.test.ts (exact |±J⟩ limit and D_nn = 5D/3).
+    const rnn = (10.12 * Math.SQRT2) / 4;
+    // μ0 μB²/(4π Å³) in meV from CODATA 2018 values (from memory): μB = 9.2740100783e-24 J/T, μ0/4π = 1e-7 T m/A
+    // (to 1e-10), 1 meV = 1.602176634e-22 J (exact).
+    const muB2PerA3MeV = (9.2740100783e-24 ** 2 * 1e-7) / 1e-30 / 1.602176634e-22;
+    const D = (muB2PerA3MeV * 100) / rnn ** 3; // μ = g_J J = 10 μB
+    expect(result.first.Jzz).toBeCloseTo(4 * 56.25 * (-1 / 3) * 0.001 + 4 * (5 / 3) * D, 5);
+    expect(Math.abs(result.first.Jpm)).toBeLessThan(1e-14);
+    expect(result.second.Jzz).toBeDefined();
+    expect(result.twoSiteCheckMeV).toBeLessThan(1e-6);
+    expect(result.scanCefScale).toHaveLength(3);
+    expect(result.interpretation).toMatch(/Ising limit/);
+    const text = r.data['text/plain'] as string;
+    expect(text).toMatch(/J_zz/);
+    const spec = r.data[VEGA_MIME] as Record<string, unknown>;
+    expect(() => compile(spec as never)).not.toThrow();
+  });
+
+  it('a Kramers XY-like doublet gives transverse couplings; θ_CW sets J_ex (mean field); the bar plot compiles', async () => {
+    const session = createCellSession({ notebookDir: '.' });
+    await runOk(session, SAMPLE_CELL.replace('Dy3+', 'Yb3+'));
+    await runOk(session, `[crystal-field] cefYb\nB:\n  B20: 0.4 meV\n  B40: 0.02 meV\n  B43: 0.15 meV\n`);
+    const r = await runOk(session, `[exchange] exYb\ncef: cefYb\nthetaCW: 0.5 K\ntwoSiteCheck: false\n`);
+    const result = (r.data[MULTIPLET_MIME] as { result: Record<string, any> }).result;
+    expect(result.isotropicFromThetaCW.thetaCWK).toBe(0.5);
+    // The first-order model reproduces the requested θ; the reported model θ includes the second order.
+    expect(Math.abs(result.thetaCWModelK - 0.5)).toBeLessThan(0.05);
+    expect(Math.abs(result.first.Jpm)).toBeGreaterThan(0);
+    expect(result.twoSiteCheckMeV).toBeNull();
+    expect(() => compile(r.data[VEGA_MIME] as never)).not.toThrow();
+  });
+
+  it('errors: a crystal field without a doublet ground state; isotropic together with thetaCW', async () => {
+    const session = createCellSession({ notebookDir: '.' });
+    await runOk(session, SAMPLE_CELL.replace('Dy3+', 'Pr3+'));
+    await runOk(session, `[crystal-field] cefPr\nB:\n  B20: 0.3 meV\n`);
+    const e1 = errorOf(await run(session, `[exchange] exPr\ncef: cefPr\nisotropic: 0.01 meV\n`));
+    expect(e1.evalue).toMatch(/doublet ground state/);
+    const e2 = errorOf(await run(session, `[exchange] exPr\ncef: cefPr\nisotropic: 0.01 meV\nthetaCW: 1 K\n`));
+    expect(e2.evalue).toMatch(/line 4/);
+    expect(e2.evalue).toMatch(/thetaCW/);
+  });
+});
