@@ -2,7 +2,10 @@
 // session, always give a clear positioned message, and leave the serialized state byte-for-byte unchanged.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { parseQuantity, parseRange } from '@multiplet/cells';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { parseQuantity, parseRange, CONTROLS_TARGET, STATE_TARGET } from '@multiplet/cells';
 import { createCellSession, run, runOk, SAMPLE_CELL, CEF_CELL } from './helpers';
 
 const kinds = fc.constantFrom('sample', 'data', 'crystal-field', 'nosuch', 'Sample', '');
@@ -91,6 +94,40 @@ describe('malformed cells (fast-check)', () => {
         }
       }),
       { numRuns: 150, seed: 3 },
+    );
+  });
+
+  it('random comm messages: every one answered, the state unchanged unless a valid set', async () => {
+    const s = createCellSession({ notebookDir: mkdtempSync(join(tmpdir(), 'multiplet-prop-')) });
+    await runOk(s, SAMPLE_CELL);
+    await runOk(s, CEF_CELL);
+    const sent: unknown[] = [];
+    const controls = s.openComm(CONTROLS_TARGET, 'c1', {}, { send: (d) => sent.push(d) })!;
+    const stateComm = s.openComm(STATE_TARGET, 'c2', {}, { send: (d) => sent.push(d) })!;
+    const value = fc.oneof(fc.double(), fc.string({ maxLength: 12 }), fc.constantFrom('-0.3 meV', '1e3 K', 'none', 'D3'), fc.constant(null), fc.object({ maxDepth: 1 }));
+    const message = fc.record(
+      {
+        action: fc.constantFrom('set', 'writeback', 'snapshot', 'rerun-stale', 'load', 'bogus', ''),
+        result: fc.constantFrom('host', 'cefA', 'nope', ''),
+        field: fc.constantFrom('B.B20', 'B.B22', 'siteSymmetry', 'compound', 'ion', '', 'B', 'x.y.z'),
+        value,
+        path: fc.string({ maxLength: 10 }).map((p) => `missing-${p.replace(/[^a-z]/g, '')}.json`),
+      },
+      { requiredKeys: [] },
+    );
+    await fc.assert(
+      fc.asyncProperty(fc.boolean(), fc.oneof(message, fc.anything()), async (useControls, data) => {
+        const before = s.state.serialize();
+        const count = sent.length;
+        await (useControls ? controls : stateComm).onMessage(data, { emit: () => {} });
+        expect(sent.length).toBeGreaterThan(count);
+        const reply = sent.at(-1) as { action: string; message?: string };
+        if (reply.action === 'error') {
+          expect(reply.message!.length).toBeGreaterThan(5);
+          expect(s.state.serialize()).toBe(before);
+        }
+      }),
+      { numRuns: 200, seed: 11 },
     );
   });
 });

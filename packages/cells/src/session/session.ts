@@ -3,11 +3,10 @@
  * state. Both hosts (the ZeroMQ kernel and the headless runner) drive it the same way, and nothing in its outputs
  * depends on the host, the wall clock or the machine.
  */
-import { dirname } from 'node:path';
+import { dirname, resolve } from 'node:path';
 import { readFileSync, writeFileSync, mkdirSync } from 'node:fs';
-import { resolve } from 'node:path';
 import type vm from 'node:vm';
-import type { CellSession, CommHost, CompletenessReply, CompletionReply, ExecuteOptions, ExecuteOutcome, InspectionReply, MimeBundle } from '../protocol';
+import type { CellSession, CommHost, CompletenessReply, CompletionReply, ExecuteOptions, ExecuteOutcome, InspectionReply } from '../protocol';
 import { CellError } from '../errors';
 import { splitCell } from '../syntax/header';
 import { SampleState } from '../state';
@@ -267,4 +266,3 @@ export function createCellSession(options: CellSessionOptions = {}): MultipletSe
   return session;
 }
 
-export type { MimeBundle };
