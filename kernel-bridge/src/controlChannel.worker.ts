@@ -43,7 +43,9 @@ port.on('message', (message: MainToWorker) => {
     );
   } else if (message.type === 'close') {
     void (async () => {
-      await Promise.race([queue.flushed(), new Promise((resolve) => setTimeout(resolve, 1000))]);
+      let timer: NodeJS.Timeout | undefined;
+      await Promise.race([queue.flushed(), new Promise((resolve) => (timer = setTimeout(resolve, 1000)))]);
+      clearTimeout(timer);
       closed = true;
       socket.close();
       port.close();

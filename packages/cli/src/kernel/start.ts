@@ -47,6 +47,9 @@ export async function startCommand(args: string[]): Promise<number> {
       kernel.stop().then(() => resolve(0), reject);
     };
     startKernel({ connection, session, log, ...(controlWorker ? { controlWorker } : {}), onShutdown: (_restart, kernel) => finish(kernel) }).then((kernel) => {
+      // Cell code must not be able to end the kernel: Node's default for these is to exit the process.
+      process.on('unhandledRejection', (reason) => log(`a promise in cell code was rejected and nothing handled it: ${describe(reason)}`));
+      process.on('uncaughtException', (err) => log(`uncaught exception outside a request (kernel keeps running): ${describe(err)}`));
       // Without a listener Node would exit on SIGINT; the signal is the fallback way to interrupt a cell.
       process.on('SIGINT', () => {
         log('SIGINT: interrupting the running cell');
@@ -56,4 +59,8 @@ export async function startCommand(args: string[]): Promise<number> {
       log(`started on ${connection.transport}://${connection.ip} (shell ${connection.shell_port}), pid ${process.pid}`);
     }, reject);
   });
+}
+
+function describe(value: unknown): string {
+  return value instanceof Error ? (value.stack ?? `${value.name}: ${value.message}`) : String(value);
 }
