@@ -67,6 +67,7 @@ test('the page loads the prebuilt extension through module federation', async ()
   });
   assert.equal(controlsGrid, 'grid');
   assert.ok(await page.isVisible('#jp-Multiplet-statePanel'), 'the sample-state panel is in the right area');
+  assert.match(await page.textContent('.jp-MarkdownOutput'), /A pyrochlore bench/);
   await shot('01-opened');
 });
 
@@ -148,6 +149,7 @@ test('insert a crystal-field template from the palette, run it, break it: precis
   const inserted = () => page.evaluate(() => window.multipletPage.tracker.currentWidget.content.activeCell.model.sharedModel.getSource());
   await page.waitForFunction(() => /^\[crystal-field\] crystalField1/.test(window.multipletPage.tracker.currentWidget.content.activeCell?.model.sharedModel.getSource() ?? ''));
   const template = await inserted();
+  const templateCell = await page.evaluate(() => window.multipletPage.tracker.currentWidget.content.activeCellIndex);
   assert.match(template, /^# B \(\w+\): Stevens parameters/m);
   assert.match(template, /^B:\n {2}B20: 1 meV$/m);
   await shot('06-template-inserted');
@@ -156,14 +158,14 @@ test('insert a crystal-field template from the palette, run it, break it: precis
   await page.waitForSelector('.jp-Multiplet-result[data-result-name="crystalField1"] figure[data-rendered="true"] svg');
   const stateBefore = await page.textContent('.jp-Multiplet-stateResults');
 
-  // Break it: a voltage where an energy belongs.
+  // Break it, in the same cell: a voltage where an energy belongs.
   const broken = template.replace(/B20: 1 meV/, 'B20: 1 mV');
   assert.notEqual(broken, template);
-  await page.click('.jp-Notebook .jp-Cell.jp-mod-active .cm-content');
+  await page.click(`.jp-Notebook .jp-Cell:nth-child(${templateCell + 1}) .cm-content`);
   await page.keyboard.press('Control+A');
   await page.keyboard.insertText(broken);
   await page.keyboard.press('Shift+Enter');
-  const error = page.locator(errorOutputs).first();
+  const error = page.locator(`.jp-Notebook .jp-Cell:nth-child(${templateCell + 1})`).locator(errorOutputs).first();
   await error.waitFor({ timeout: 60_000 });
   const message = await error.textContent();
   // The error names the line and column of the value, the field path, what was given and what was expected.
@@ -176,6 +178,32 @@ test('insert a crystal-field template from the palette, run it, break it: precis
   await page.waitForTimeout(500);
   assert.equal(await page.textContent('.jp-Multiplet-stateResults'), stateBefore);
   await shot('07-broken-template');
+});
+
+test('save the state file from the panel, then load it back', async () => {
+  const stateBefore = await page.textContent('.jp-Multiplet-stateResults');
+  await page.click('.jp-Multiplet-stateButton >> text=Save state');
+  await page.waitForSelector('.jp-Dialog input');
+  assert.equal(await page.inputValue('.jp-Dialog input'), 'sample-state.json');
+  await page.click('.jp-Dialog .jp-mod-accept');
+  // The kernel wrote it beside the notebook: read it back through the server's contents API.
+  const origin = new URL(lab.pages['bench.ipynb']).origin;
+  let saved = null;
+  for (let i = 0; i < 50 && !saved; i++) {
+    const response = await fetch(`${origin}/api/contents/sample-state.json?content=1&type=file&format=text`, { headers: { Authorization: `token ${lab.token}` } });
+    if (response.ok) saved = JSON.parse((await response.json()).content);
+    else await new Promise((r) => setTimeout(r, 200));
+  }
+  assert.ok(saved, 'sample-state.json was written');
+  assert.equal(saved.format, 'multiplet-state');
+  assert.ok(saved.results.cefA && saved.results.crystalField1, `saved results: ${Object.keys(saved.results)}`);
+  await page.click('.jp-Multiplet-stateButton >> text=Load state');
+  await page.waitForSelector('.jp-Dialog input');
+  await page.click('.jp-Dialog .jp-mod-accept');
+  await page.waitForSelector('.jp-Dialog', { state: 'detached' });
+  await page.waitForTimeout(500);
+  assert.equal(await page.textContent('.jp-Multiplet-stateResults'), stateBefore);
+  assert.equal(await page.locator('.jp-Dialog').count(), 0, 'no error dialog');
 });
 
 test('dark theme: the result view follows it', async () => {

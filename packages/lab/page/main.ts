@@ -14,6 +14,7 @@ import {
 } from '@jupyterlab/codemirror';
 import { PageConfig } from '@jupyterlab/coreutils';
 import { DocumentManager } from '@jupyterlab/docmanager';
+import { createMarkdownParser } from '@jupyterlab/markedparser-extension';
 import { DocumentRegistry, type IDocumentWidget } from '@jupyterlab/docregistry';
 import {
   INotebookTracker,
@@ -98,7 +99,7 @@ function notebookServices(serverSettings: ServerConnection.ISettings) {
   });
   const editorServices = new CodeMirrorEditorFactory({ extensions, languages });
   const mimeTypeService = new CodeMirrorMimeTypeService(languages);
-  const rendermime = new RenderMimeRegistry({ initialFactories: standardRendererFactories });
+  const rendermime = new RenderMimeRegistry({ initialFactories: standardRendererFactories, markdownParser: createMarkdownParser(languages) });
   const manager = new ServiceManager({ serverSettings, standby: 'never', events: quietEvents(serverSettings), user: localUser(serverSettings) });
   return { editorServices, mimeTypeService, rendermime, manager };
 }
