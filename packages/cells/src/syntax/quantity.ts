@@ -9,7 +9,7 @@
  * common practice.
  */
 import { create, all, type Unit } from 'mathjs';
-import { KELVIN_IN_MEV, INVERSE_CM_IN_MEV, THZ_IN_MEV } from '@multiplet/physics/units';
+import { KELVIN_IN_MEV, INVERSE_CM_IN_MEV, THZ_IN_MEV, BOHR_MAGNETON_J_PER_T } from '@multiplet/physics/units';
 
 const math = create(all, {});
 math.createUnit('Oe', { definition: '1e-4 T' }, { override: false });
@@ -17,6 +17,11 @@ math.createUnit('G', { definition: '1e-4 T' }, { override: false });
 // Magnetometry's emu (a moment): 1 emu ≙ 1e-3 A m² (common practice). With Oe ≙ 1e-4 T, emu/mol/Oe converts among
 // CGS spellings; to SI m³/mol use EMU_PER_MOL_IN_M3_PER_MOL from physics/units (the μ0 factor is not a unit change).
 math.createUnit('emu', { definition: '1e-3 A m^2' }, { override: false });
+// Data-table units of the trade: moments in Bohr magnetons (muB, A m² = J/T from physics/units), neutron cross-sections
+// in barn (1e-28 m², with SI prefixes: mbarn) per steradian (sr = rad², SI).
+math.createUnit('muB', { definition: `${BOHR_MAGNETON_J_PER_T} A m^2` }, { override: false });
+math.createUnit('barn', { definition: '1e-28 m^2', prefixes: 'short' }, { override: false });
+math.createUnit('sr', { definition: '1 rad^2' }, { override: false });
 
 /** Why a quantity string was refused: a phrase that follows "expected ...". */
 export class QuantityProblem extends Error {
