@@ -1,6 +1,7 @@
 import { InputError } from '../errors';
 import { NO_TASK, type LongTask } from '../progress';
 import { inversionHalf, lebedevGrid, type SphereGrid } from '../quadrature';
+import { reducePowderGrid } from './internal/powderSymmetry';
 import { PreparedIon, thermalMoment, unitVector, type SingleIonInput } from './internal/singleIon';
 import { teslaPerMuB, totalMeanFieldMolPerEmu, type Demagnetization } from './internal/meanField';
 import { numberArray, temperatureArray } from './internal/validate';
@@ -14,6 +15,8 @@ export interface PowderOptions {
   degree?: number;
   /** Otherwise: increase the degree along POWDER_DEGREE_SEQUENCE until max|ΔM| ≤ tolerance·max|M| per curve (default 1e-4). */
   tolerance?: number;
+  /** Or any grid of unit vectors with weights adding up to 1 (its inversion half is used when it has one). */
+  grid?: SphereGrid;
 }
 
 export interface MagnetizationOptions {
@@ -36,9 +39,17 @@ export interface MagnetizationResult {
   magnetizationMuB: Float64Array[];
   temperaturesK: Float64Array;
   fieldsT: Float64Array;
-  /** Powder only: the grid used (full-grid name and degree), the directions computed (inversion half), and the
-   *  last change between successive degrees relative to max|M| (NaN-free: 0 when a fixed degree was asked for). */
-  powder?: { grid: string; degree: number; directionsComputed: number; relativeChange: number; converged: boolean };
+  /** Powder only: the grid used (full-grid name and degree), the directions computed (all grids, after symmetry
+   *  reduction), and the last change between successive degrees relative to max|M| (0 for a fixed degree or grid). */
+  powder?: {
+    grid: string;
+    degree: number;
+    directionsComputed: number;
+    /** Symmetry operations merged (2 = time reversal alone; up to 48 for a cubic site): see the description. */
+    symmetryOperations: number;
+    relativeChange: number;
+    converged: boolean;
+  };
   /** Number of Hamiltonians diagonalised. */
   diagonalisations: number;
 }
@@ -53,9 +64,12 @@ export const POWDER_DEGREE_SEQUENCE: readonly number[] = [11, 17, 23, 29, 35, 41
  * exactly and M = g_J Σ_k p_k ⟨k|B̂·J|k⟩ with Boltzmann populations p_k (the moment's component along the field;
  * e.g. Jensen & Mackintosh, "Rare Earth Magnetism", ch. 1). With several site frames (e.g. the four ⟨111⟩ frames of
  * the pyrochlore lattice) the field is rotated into each local frame, B_local = R_sᵀ B, and M is the site average.
- * Powder: the spherical mean of M(B n̂) over a Lebedev–Laikov grid, computed on the inversion half of the grid since
- * M(−B) = −M(B) (time reversal; H_CEF is even in J). Without a molecular field the powder mean is the same for any
- * set of site frames (rotation invariance of the sphere), so a single site is used.
+ * Powder: the spherical mean of M(B n̂) over a Lebedev–Laikov grid. M∥(−n̂) = M∥(n̂) since M(−B) = −M(B) (time
+ * reversal; H_CEF is even in J), and M∥(R n̂) = M∥(n̂) for every rotation R with D(R) H_CEF D(R)† = H_CEF; the grid
+ * (oriented with its cube axes, or its cube [111], along the local axes) is reduced to one direction per orbit of
+ * these operations, with the orbit's weight — 2 operations for a triclinic site, 12 for D3d, 48 for a cubic one.
+ * Without a molecular field the powder mean is the same for any set of site frames (rotation invariance of the
+ * sphere), so a single site is used; with one and several sites only the inversion half is used.
  * Optional corrections (off by default): molecular field λ and demagnetisation, B_eff = B + (λ − 4πN/V_m) M,
  * solved self-consistently along the field for each field, temperature and direction (mean-field approximation).
  *
@@ -83,40 +97,80 @@ export function magnetization(ion: SingleIonInput, options: MagnetizationOptions
 
   const powder = options.powder ?? {};
   if (powder === null || typeof powder !== 'object') throw new InputError('powder', powder, 'an object { degree } or { tolerance }');
-  if (powder.degree !== undefined && powder.tolerance !== undefined) throw new InputError('powder', powder, 'either degree or tolerance, not both');
-  const effectiveFrames = lambda === 0 ? frames.slice(0, 1).map(() => IDENTITY) : frames;
-  const mean = (grid: SphereGrid) => powderCurve(prepared, effectiveFrames, inversionHalf(grid), temperatures, fields, lambda, task);
+  if ([powder.degree, powder.tolerance, powder.grid].filter((x) => x !== undefined).length > 1)
+    throw new InputError('powder', powder, 'one of degree, tolerance or grid');
+  // One site (or no molecular field, when every site gives the same powder mean): the single-site function M∥(n̂)
+  // in the local frame, whose symmetry group reduces the grid. Several coupled sites: the inversion half only.
+  const singleSite = lambda === 0 || frames.length === 1;
+  const effectiveFrames = singleSite ? [IDENTITY] : frames;
+  let symmetryOperations = 2;
+  const reduce = (grid: SphereGrid): SphereGrid => {
+    if (!singleSite) return inversionHalf(grid);
+    const reduced = reducePowderGrid(prepared, grid);
+    symmetryOperations = 2 * reduced.rotations;
+    return reduced.grid;
+  };
+  const mean = (grid: SphereGrid) => powderCurve(prepared, effectiveFrames, grid, temperatures, fields, lambda, task);
+
+  if (powder.grid !== undefined) {
+    const grid = checkGrid(powder.grid);
+    let used: SphereGrid;
+    try {
+      used = inversionHalf(grid);
+    } catch (error) {
+      if (!(error instanceof InputError)) throw error;
+      used = grid;
+    }
+    const m = powderCurve(prepared, effectiveFrames, used, temperatures, fields, lambda, task);
+    return {
+      magnetizationMuB: m, temperaturesK: temperatures, fieldsT: fields, diagonalisations: prepared.diagonalisations,
+      powder: { grid: grid.name, degree: grid.degree, directionsComputed: used.count, symmetryOperations: used === grid ? 1 : 2, relativeChange: 0, converged: true },
+    };
+  }
 
   if (powder.degree !== undefined) {
     const grid = lebedevGrid(powder.degree);
-    const m = mean(grid);
+    const used = reduce(grid);
+    const m = mean(used);
     return {
       magnetizationMuB: m, temperaturesK: temperatures, fieldsT: fields, diagonalisations: prepared.diagonalisations,
-      powder: { grid: grid.name, degree: grid.degree, directionsComputed: grid.count / 2, relativeChange: 0, converged: true },
+      powder: { grid: grid.name, degree: grid.degree, directionsComputed: used.count, symmetryOperations, relativeChange: 0, converged: true },
     };
   }
   const tolerance = powder.tolerance ?? 1e-4;
   if (typeof tolerance !== 'number' || !(tolerance > 0) || !Number.isFinite(tolerance)) throw new InputError('powder.tolerance', tolerance, 'a relative tolerance > 0');
   let previous: Float64Array[] | undefined;
   let grid = lebedevGrid(POWDER_DEGREE_SEQUENCE[0]);
-  let current = mean(grid);
+  let used = reduce(grid);
+  let current = mean(used);
   let change = Infinity;
-  let computed = grid.count / 2;
+  let computed = used.count;
   for (let k = 1; k < POWDER_DEGREE_SEQUENCE.length; k++) {
     previous = current;
     grid = lebedevGrid(POWDER_DEGREE_SEQUENCE[k]);
-    current = mean(grid);
-    computed += grid.count / 2;
+    used = reduce(grid);
+    current = mean(used);
+    computed += used.count;
     change = relativeChange(previous, current);
     if (change <= tolerance) break;
   }
   return {
     magnetizationMuB: current, temperaturesK: temperatures, fieldsT: fields, diagonalisations: prepared.diagonalisations,
-    powder: { grid: grid.name, degree: grid.degree, directionsComputed: computed, relativeChange: change, converged: change <= tolerance },
+    powder: { grid: grid.name, degree: grid.degree, directionsComputed: computed, symmetryOperations, relativeChange: change, converged: change <= tolerance },
   };
 }
 
 const IDENTITY: Rotation3 = [[1, 0, 0], [0, 1, 0], [0, 0, 1]];
+
+function checkGrid(grid: SphereGrid): SphereGrid {
+  const ok =
+    grid !== null && typeof grid === 'object' && grid.directions instanceof Float64Array && grid.weights instanceof Float64Array &&
+    Number.isInteger(grid.count) && grid.count > 0 && grid.directions.length === 3 * grid.count && grid.weights.length === grid.count;
+  if (!ok) throw new InputError('powder.grid', grid, 'a SphereGrid { name, degree, count, directions (3·count), weights (count) }');
+  const total = grid.weights.reduce((s, w) => s + w, 0);
+  if (Math.abs(total - 1) > 1e-9) throw new InputError('powder.grid.weights', total, 'weights adding up to 1');
+  return grid;
+}
 
 /** max over curves of max|a − b| / max|b| (per temperature curve). */
 function relativeChange(a: Float64Array[], b: Float64Array[]): number {
