@@ -12,7 +12,7 @@ from kernel_env import InstalledKernel
 FIXTURES = Path(__file__).resolve().parent / "fixtures"
 
 
-def execute_with_nbclient(notebook_name, kernel_name, timeout=60):
+def execute_with_nbclient(notebook_name, kernel_name, timeout=60, allow_errors=False):
     """Run a fixture notebook in a scratch copy of the fixtures directory; returns the executed notebook."""
     workdir = tempfile.mkdtemp(prefix="multiplet-nbclient-")
     try:
@@ -20,7 +20,7 @@ def execute_with_nbclient(notebook_name, kernel_name, timeout=60):
             if f.is_file():
                 shutil.copy(f, workdir)
         nb = nbformat.read(str(Path(workdir) / notebook_name), as_version=4)
-        client = NotebookClient(nb, kernel_name=kernel_name, timeout=timeout, resources={"metadata": {"path": workdir}})
+        client = NotebookClient(nb, kernel_name=kernel_name, timeout=timeout, allow_errors=allow_errors, resources={"metadata": {"path": workdir}})
         client.execute()
         return nb
     finally:

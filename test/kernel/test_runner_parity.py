@@ -40,7 +40,7 @@ class RunnerParityTests(unittest.TestCase):
     def tearDownClass(cls):
         cls.installed.remove()
 
-    def run_headless(self, notebook_name):
+    def run_headless(self, notebook_name, *flags, expect_status=0):
         workdir = tempfile.mkdtemp(prefix="multiplet-runner-")
         try:
             for f in FIXTURES.iterdir():
@@ -48,10 +48,11 @@ class RunnerParityTests(unittest.TestCase):
                     shutil.copy(f, workdir)
             out = Path(workdir) / "executed.ipynb"
             done = subprocess.run(
-                [shutil.which("node"), str(CLI), "run", str(Path(workdir) / notebook_name), "--out", str(out)],
+                [shutil.which("node"), str(CLI), "run", str(Path(workdir) / notebook_name), "--out", str(out), *flags],
                 capture_output=True, text=True, timeout=120,
             )
-            self.assertEqual(done.returncode, 0, done.stderr)
+            self.assertEqual(done.returncode, expect_status, done.stderr)
+            self.last_stderr = done.stderr
             nb = nbformat.read(str(out), as_version=4)
             nbformat.validate(nb)
             return nb
@@ -66,6 +67,17 @@ class RunnerParityTests(unittest.TestCase):
         for kernel_cell, runner_cell in zip(via_kernel, via_runner):
             with self.subTest(cell=kernel_cell["id"]):
                 self.assertEqual(kernel_cell, runner_cell)
+
+
+    def test_error_notebook_same_outputs_from_kernel_and_runner(self):
+        via_kernel = comparable_outputs(execute_with_nbclient("errors.ipynb", self.installed.name, allow_errors=True))
+        via_runner = comparable_outputs(self.run_headless("errors.ipynb", "--allow-errors", expect_status=1))
+        errors = [c["id"] for c in via_kernel if any(o["output_type"] == "error" for o in c["outputs"])]
+        self.assertEqual(errors, ["forbidden-parameter", "unknown-ion", "script-error"])
+        for kernel_cell, runner_cell in zip(via_kernel, via_runner):
+            with self.subTest(cell=kernel_cell["id"]):
+                self.assertEqual(kernel_cell, runner_cell)
+        self.assertEqual(len(via_kernel), len(via_runner))
 
 
 if __name__ == "__main__":
