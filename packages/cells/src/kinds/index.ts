@@ -7,8 +7,11 @@ import { sampleKind } from './sample';
 import { dataKind } from './data';
 import { crystalFieldKind } from './crystalField';
 import { exchangeKind } from './exchange';
+import { neutronSpectrumKind } from './neutronSpectrum';
+import { cefFitKind } from './cefFit';
+import { pointChargeKind } from './pointCharge';
 
-const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind, exchangeKind];
+const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind, exchangeKind, neutronSpectrumKind, cefFitKind, pointChargeKind];
 
 const REGISTRY = new Map(KINDS.map((k) => [k.kind, k]));
 
