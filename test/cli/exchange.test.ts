@@ -19,7 +19,7 @@ describe('multiplet compute exchange (built CLI)', () => {
 
   it('pure |±15/2⟩ Dy3+ doublet with isotropic exchange: J_zz = 4J²(−1/3)J_ex at first order, no transverse terms', () => {
     // Derivation in test/physics/exchange/effectiveExchange.test.ts (P J^z P = 2J S^z, ẑ_i·ẑ_j = −1/3).
-    const r = run({ ion: 'Dy3+', B: { B20: -0.1 }, latticeConstantAngstrom: 10.1, coupling: { isotropicMeV: 0.001 }, order: 2 });
+    const r = run({ ion: 'Dy3+', B: { B20: -0.1 }, latticeConstantAngstrom: 10.1, coupling: { isotropicMeV: 0.001 }, order: 2, furtherNeighbours: true });
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout);
@@ -30,6 +30,8 @@ describe('multiplet compute exchange (built CLI)', () => {
     expect(out.twoSiteCheck).toBeLessThan(1e-6);
     expect(out.ratios.first.JpmOverJzz).toBeCloseTo(0, 12);
     expect(out.interpretation).toMatch(/Ising limit/);
+    // pyrochlore geometry: J1 has two common nearest neighbours, J2 and J3b one, J3a none
+    expect(out.furtherNeighbours.map((c: { shell: string; middleIons: number }) => [c.shell, c.middleIons])).toEqual([['J1', 2], ['J2', 1], ['J3a', 0], ['J3b', 1]]);
   });
 
   it('order 1 gives second = null; K units and a general geometry are accepted', () => {

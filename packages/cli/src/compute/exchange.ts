@@ -13,6 +13,7 @@
  *   geometry                {bondVectorAngstrom, frameI, frameJ}: a general two-site geometry instead of the lattice
  *   coupling                {isotropicMeV?, matrixMeV? (3×3, global frame), dipolar?: true}          required
  *   order                   1 or 2 (default 2)
+ *   furtherNeighbours       true: also the J1/J2/J3a/J3b couplings mediated by a virtually excited middle ion
  * Output: first, second ({Jzz, Jpm, Jpmpm, Jzpm, residualMeV, matrixLocalMeV, …} in meV; second = through second
  * order, null for order 1), ratios, interpretation, twoSiteCheck (meV), and the details listed in the README.
  */
@@ -25,12 +26,13 @@ import {
   generalBond,
   microscopicCouplingMatrix,
   effectiveExchange,
+  furtherNeighbourExchange,
   type PseudospinCouplings,
   type MicroscopicCouplingSpec,
 } from '@multiplet/physics/exchange';
 import type { ComputeKind } from './index';
 
-const FIELDS = ['ion', 'B', 'unit', 'symmetry', 'latticeConstantAngstrom', 'bond', 'geometry', 'coupling', 'order'];
+const FIELDS = ['ion', 'B', 'unit', 'symmetry', 'latticeConstantAngstrom', 'bond', 'geometry', 'coupling', 'order', 'furtherNeighbours'];
 const COUPLING_FIELDS = ['isotropicMeV', 'matrixMeV', 'dipolar'];
 
 function couplingsJson(c: PseudospinCouplings) {
@@ -87,6 +89,10 @@ export const exchange: ComputeKind = {
     for (const key of Object.keys(coupling))
       if (!COUPLING_FIELDS.includes(key)) throw new InputError(`coupling.${key}`, (coupling as Record<string, unknown>)[key], `no such field; fields are ${COUPLING_FIELDS.join(', ')}`);
 
+    const further = input.furtherNeighbours ?? false;
+    if (typeof further !== 'boolean') throw new InputError('furtherNeighbours', further, 'true or false');
+    if (further && input.geometry !== undefined)
+      throw new InputError('furtherNeighbours', further, 'the pyrochlore lattice (latticeConstantAngstrom), not a general geometry');
     const site = pseudospinSiteFromParameters(ion, parametersMeV, { field: 'B' });
     const k = microscopicCouplingMatrix(coupling as MicroscopicCouplingSpec, geometry, ion.gJ, ion.gJ, 'coupling');
     const r = effectiveExchange(site, site, geometry, k, { order });
@@ -111,6 +117,16 @@ export const exchange: ComputeKind = {
       interpretation: r.interpretation,
       twoSiteCheck: r.twoSiteCheck!.maxDifferenceMeV,
       twoSiteLevelsMeV: { exact: r.twoSiteCheck!.exactLevelsMeV, effective: r.twoSiteCheck!.effectiveLevelsMeV },
+      furtherNeighbours: further
+        ? furtherNeighbourExchange(site, input.latticeConstantAngstrom as number, coupling as MicroscopicCouplingSpec).map((c) => ({
+            shell: c.shell,
+            distanceAngstrom: c.distanceAngstrom,
+            middleIons: c.middleIons,
+            matrixLocalMeV: c.matrixLocalMeV,
+            JzzMeV: c.JzzMeV,
+            directDipolarLocalMeV: c.directDipolarLocalMeV,
+          }))
+        : null,
     };
   },
 };
