@@ -39,7 +39,7 @@ describe('multiplet.controls', () => {
     expect(s.state.get('cefA')!.source).toBe(sent[0]!.source);
 
     await handler.onMessage({ action: 'writeback', result: 'cefA' }, { emit: () => {} });
-    expect(sent[1]).toEqual({ action: 'writeback', result: 'cefA', source: sent[0]!.source });
+    expect(sent[1]).toEqual({ action: 'writeback', result: 'cefA', source: sent[0]!.source, cellId: null });
   });
 
   it('changing the sample through a control reruns the dependent crystal field', async () => {
@@ -79,8 +79,12 @@ describe('multiplet.state', () => {
     const dir = mkdtempSync(join(tmpdir(), 'multiplet-comm-'));
     const s = createCellSession({ notebookDir: dir });
     const { sent, handler } = openComm(s, STATE_TARGET);
-    await runOk(s, SAMPLE_CELL);
-    expect(sent.at(-1)).toMatchObject({ action: 'snapshot', sample: { name: 'host', ion: 'Dy3+' }, results: [{ name: 'host', kind: 'sample', stale: false }] });
+    await s.execute(SAMPLE_CELL, { emit: () => {}, cellId: 'abc-1', executionCount: 1 });
+    expect(sent.at(-1)).toMatchObject({
+      action: 'snapshot',
+      sample: { name: 'host', ion: 'Dy3+' },
+      results: [{ name: 'host', kind: 'sample', stale: false, executionCount: 1, cellId: 'abc-1' }],
+    });
     await runOk(s, CEF_CELL);
     await runOk(s, '[data] cp\ntable: |\n  T (K), C (J/mol/K)\n  2, 0.5\n');
     await runOk(s, SAMPLE_CELL.replace('D3d', 'D3'));

@@ -22,10 +22,19 @@ export const STATE_TARGET = 'multiplet.state';
 export interface StateSnapshot {
   sample: (Record<string, unknown> & { name: string }) | null;
   datasets: { name: string; rows: number; columns: { name: string; unit: string }[] }[];
-  results: { name: string; kind: string; role: string; stale: boolean; reads: string[]; executionCount: number | null }[];
+  results: {
+    name: string;
+    kind: string;
+    role: string;
+    stale: boolean;
+    reads: string[];
+    executionCount: number | null;
+    /** nbformat id of the notebook cell that last produced it, when the host passed one (null otherwise). */
+    cellId: string | null;
+  }[];
 }
 
-export function stateSnapshot(state: SampleState): StateSnapshot {
+export function stateSnapshot(state: SampleState, cellIdOf: (name: string) => string | undefined = () => undefined): StateSnapshot {
   const sampleName = state.sampleName;
   const sample = sampleName === null ? null : { name: sampleName, ...(state.get(sampleName)!.result as Record<string, unknown>) };
   const datasets = state.datasets().map((name) => {
@@ -34,7 +43,7 @@ export function stateSnapshot(state: SampleState): StateSnapshot {
   });
   const results = state.names().map((name) => {
     const r = state.get(name)!;
-    return { name, kind: r.kind, role: r.role, stale: r.stale, reads: r.reads, executionCount: r.executionCount };
+    return { name, kind: r.kind, role: r.role, stale: r.stale, reads: r.reads, executionCount: r.executionCount, cellId: cellIdOf(name) ?? null };
   });
   return { sample, datasets, results };
 }
@@ -63,7 +72,7 @@ export function openControlsComm(session: MultipletSession, host: CommHost) {
         return;
       }
       if (action === 'writeback') {
-        host.send({ action: 'writeback', result: name, source: record.source });
+        host.send({ action: 'writeback', result: name, source: record.source, cellId: session.cellIdOf(name) ?? null });
         return;
       }
       const field = typeof message.field === 'string' ? message.field : '';
@@ -81,7 +90,7 @@ export function openControlsComm(session: MultipletSession, host: CommHost) {
         }
         const source = setFieldInSource(record.source, field, text);
         const reports = await session.rerunWithSource(name, source, options);
-        host.send({ action: 'updated', result: name, field, source, results: reports });
+        host.send({ action: 'updated', result: name, field, source, cellId: session.cellIdOf(name) ?? null, results: reports });
       } catch (error) {
         host.send({ action: 'error', result: name, field, message: messageOf(error) });
       }

@@ -45,6 +45,8 @@ export interface MultipletSession extends CellSession {
   snapshot(): StateSnapshot;
   /** Display ids that currently show a result (updated in place after reruns). */
   displayIdsOf(name: string): string[];
+  /** nbformat id of the cell that last produced a result, when the host passed ExecuteOptions.cellId. */
+  cellIdOf(name: string): string | undefined;
 }
 
 function errorOutcome(error: unknown, source: string): ExecuteOutcome {
@@ -68,6 +70,8 @@ export function createCellSession(options: CellSessionOptions = {}): MultipletSe
   let displayCounter = 0;
   /** result name → display ids showing it. Host-side bookkeeping, never part of outputs. */
   let displays = new Map<string, string[]>();
+  /** result name → producing notebook cell id. Host-side bookkeeping, never part of outputs or saved state. */
+  let cellIds = new Map<string, string>();
   const stateComms = new Set<CommHost>();
 
   const nextDisplayId = (prefix: string) => `multiplet-${prefix}-${++displayCounter}`;
@@ -92,7 +96,7 @@ export function createCellSession(options: CellSessionOptions = {}): MultipletSe
 
   const pushSnapshot = () => {
     if (stateComms.size === 0) return;
-    const snapshot = { action: 'snapshot', ...stateSnapshot(state) };
+    const snapshot = { action: 'snapshot', ...stateSnapshot(state, (n) => cellIds.get(n)) };
     for (const host of stateComms) host.send(snapshot);
   };
 
@@ -146,6 +150,8 @@ export function createCellSession(options: CellSessionOptions = {}): MultipletSe
         const { record, bundle, metadata, staled } = await executeTyped(code, execOptions, execOptions.executionCount ?? null);
         const displayId = nextDisplayId(record.name);
         displays.set(record.name, [...(displays.get(record.name) ?? []), displayId]);
+        if (execOptions.cellId) cellIds.set(record.name, execOptions.cellId);
+        else cellIds.delete(record.name);
         refreshDisplays(staled, execOptions.emit);
         return { status: 'ok', result: { data: bundle, metadata, displayId } };
       } catch (error) {
@@ -217,11 +223,13 @@ export function createCellSession(options: CellSessionOptions = {}): MultipletSe
       }
       state.load(text);
       displays = new Map();
+      cellIds = new Map();
       pushSnapshot();
     },
 
-    snapshot: () => stateSnapshot(state),
+    snapshot: () => stateSnapshot(state, (n) => cellIds.get(n)),
     displayIdsOf: (name) => (displays.get(name) ?? []).slice(),
+    cellIdOf: (name) => cellIds.get(name),
 
     complete: (code, cursorPos): CompletionReply => complete(code, cursorPos, state),
     inspect: (code, cursorPos, detailLevel): InspectionReply => inspect(code, cursorPos, detailLevel, state),
@@ -260,6 +268,7 @@ export function createCellSession(options: CellSessionOptions = {}): MultipletSe
       state.clear();
       scriptContext = createScriptContext();
       displays = new Map();
+      cellIds = new Map();
       displayCounter = 0;
     },
   };
