@@ -23,6 +23,8 @@ import {
   NotebookPanel,
   NotebookTracker,
   NotebookWidgetFactory,
+  runCell,
+  setCellExecutor,
 } from '@jupyterlab/notebook';
 import { IRenderMimeRegistry, RenderMimeRegistry, standardRendererFactories } from '@jupyterlab/rendermime';
 import { ServerConnection, ServiceManager, type Event, type User } from '@jupyterlab/services';
@@ -111,6 +113,8 @@ async function main(): Promise<void> {
   const docRegistry = new DocumentRegistry();
   const app = new MultipletPage({ shell, serviceManager: manager, docRegistry });
   const tracker = new NotebookTracker({ namespace: 'notebook' });
+  // JupyterLab's own default executor (what its notebook-extension installs).
+  setCellExecutor({ runCell });
 
   const commandPalette = new CommandPalette({ commands: app.commands });
   commandPalette.id = 'multiplet-page-palette';
