@@ -20,7 +20,7 @@ describe('[exchange] cell', () => {
     const session = createCellSession({ notebookDir: '.' });
     await runOk(session, SAMPLE_CELL);
     await runOk(session, DY_CEF);
-    const r = await runOk(session, `[exchange] exA\ncef: cefIsing\nisotropic: 0.001 meV\ndipolar: true\ncefScale: 0.5 .. 2 / 3 log\n`);
+    const r = await runOk(session, `[exchange] exA\ncef: cefIsing\nisotropic: 0.001 meV\ndipolar: true\ncefScale: 0.5 .. 2 / 3 log\nfurtherNeighbours: true\n`);
     const payload = r.data[MULTIPLET_MIME] as { result: Record<string, any> };
     const result = payload.result;
     // Derivations: test/physics/exchange/effectiveExchange.test.ts (exact |±J⟩ limit and D_nn = 5D/3).
@@ -34,6 +34,7 @@ describe('[exchange] cell', () => {
     expect(result.second.Jzz).toBeDefined();
     expect(result.twoSiteCheckMeV).toBeLessThan(1e-6);
     expect(result.scanCefScale).toHaveLength(3);
+    expect(result.furtherNeighbours.map((c: { shell: string }) => c.shell)).toEqual(['J1', 'J2', 'J3a', 'J3b']);
     expect(result.interpretation).toMatch(/Ising limit/);
     const text = r.data['text/plain'] as string;
     expect(text).toMatch(/J_zz/);

@@ -25,6 +25,8 @@ import {
   scaledCoupling,
   curieWeissThetaK,
   exchangeScaleFromCurieWeiss,
+  furtherNeighbourExchange,
+  type MediatedCoupling,
   type ExchangeScanRow,
   type PseudospinCouplings,
 } from '@multiplet/physics/exchange';
@@ -45,6 +47,7 @@ interface ExchangeInput {
   twoSiteCheck: boolean;
   cefScale?: number[];
   exchangeScale?: number[];
+  furtherNeighbours: boolean;
 }
 
 type Couplings = { Jzz: number; Jpm: number; Jpmpm: number; Jzpm: number; residualMeV: number; matrixLocalMeV: number[][] };
@@ -73,6 +76,8 @@ export interface ExchangeResult {
   twoSiteLevelsMeV: { exact: number[]; effective: number[] } | null;
   scanCefScale: ExchangeScanRow[] | null;
   scanExchangeScale: ExchangeScanRow[] | null;
+  /** Couplings mediated by a virtually excited common neighbour (J1 correction, J2, J3a, J3b), or null. */
+  furtherNeighbours: MediatedCoupling[] | null;
 }
 
 const ENERGY_UNITS = ['meV', 'K', 'cm-1', 'THz', 'ueV'] as const;
@@ -157,10 +162,17 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       unit: '',
       doc: 'Scan: all microscopic couplings scaled by these factors, e.g. "0.5 .. 2 / 5".',
     },
+    furtherNeighbours: {
+      type: 'boolean',
+      default: false,
+      doc: 'Also compute the second-order couplings between further neighbours (J2, J3b, and a correction to J1) mediated by a virtually excited common nearest neighbour (isotropic and dipolar couplings only).',
+    },
   },
   reads: ['sample', 'references'],
   writes: 'result',
   check(input, ctx) {
+    if (input.furtherNeighbours && input.matrix !== undefined)
+      ctx.fail('furtherNeighbours', true, 'isotropic and/or dipolar couplings only (a bond matrix is not mapped to the other bonds)');
     if (input.thetaCW !== undefined && input.isotropic !== undefined)
       ctx.fail('thetaCW', input.thetaCW, 'either thetaCW or isotropic, not both (thetaCW determines the isotropic exchange)');
     if (input.isotropic === undefined && input.matrix === undefined && !input.dipolar && input.thetaCW === undefined)
@@ -225,6 +237,7 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       twoSiteLevelsMeV: r.twoSiteCheck ? { exact: r.twoSiteCheck.exactLevelsMeV, effective: r.twoSiteCheck.effectiveLevelsMeV } : null,
       scanCefScale,
       scanExchangeScale,
+      furtherNeighbours: input.furtherNeighbours ? furtherNeighbourExchange(site, a!, spec) : null,
     };
   },
   render(r, info) {
@@ -255,10 +268,19 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
     ]
       .filter((line) => line !== '')
       .join('\n');
+    const furtherColumns = [{ name: 'shell' }, { name: 'r', unit: 'Å' }, { name: 'middle ions' }, { name: 'mediated J_zz', unit: 'meV' }, { name: 'direct dipolar zz', unit: 'meV' }];
+    const furtherRows = (r.furtherNeighbours ?? []).map((c) => [
+      c.shell,
+      c.distanceAngstrom,
+      String(c.middleIons),
+      c.JzzMeV,
+      c.directDipolarLocalMeV ? c.directDipolarLocalMeV[2]![2]! : '—',
+    ]);
     const html = [
       `<div class="multiplet-exchange"><p><b>${escapeHtml(info.name)}</b>: ${escapeHtml(r.interpretation)}</p>`,
       htmlTable('pseudospin couplings (convention: README, exchange)', columns, rows),
       htmlKeyValue('bond and checks', facts),
+      r.furtherNeighbours ? htmlTable('further neighbours via a virtually excited middle ion (second order)', furtherColumns, furtherRows) : '',
       '</div>',
     ].join('');
     const scanValues = (rowsOf: ExchangeScanRow[], x: (row: ExchangeScanRow) => number) =>
