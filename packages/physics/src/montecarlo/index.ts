@@ -14,3 +14,5 @@ export * from './entropyByIntegration';
 export * from './spinIceSimulation';
 export * from './summarizeSpinIceRun';
 export * from './runSpinIceMonteCarlo';
+export * from './multiHistogramReweighting';
+export * from './reweightedHeatCapacity';

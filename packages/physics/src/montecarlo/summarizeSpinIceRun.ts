@@ -44,6 +44,7 @@ export function summarizeSpinIceRun(raw: SpinIceRawResult, bins = 20): SpinIceRu
     raw.temperaturesK,
     energy.map((e) => (e.value - c.constantK) / N),
     highTemperatureVariancePerSpinK2(raw),
+    cap.map((x) => x.value),
   );
   return {
     temperaturesK: raw.temperaturesK,
