@@ -1,5 +1,5 @@
 // The standalone notebook page in headless chromium, on the real Multiplet kernel: run a notebook, see the result
-// views (level diagram), move a B_n^m control, watch the sample-state panel mark and clear stale results, insert
+// views (level diagram, the neutron spectrum that depends on it), move a B_n^m control, watch the sample-state panel mark and clear stale results, insert
 // a template from the command palette, run it, break it, and read the precise error. Screenshots of each step go
 // to test-artifacts/lab/; the one with the interactive crystal-field cell is copied to docs/screenshot-lab.png.
 import assert from 'node:assert/strict';
@@ -17,6 +17,7 @@ let browser;
 let page;
 
 const cefOutput = '.jp-Multiplet-result[data-kind="crystal-field"][data-result-name="cefA"]';
+const spectrumOutput = '.jp-Multiplet-result[data-kind="neutron-spectrum"][data-result-name="spectrumA"]';
 const stateResult = (name) => `.jp-Multiplet-statePanel li.jp-Multiplet-stateResult[data-name="${name}"]`;
 const errorOutputs = '.jp-OutputArea-output[data-mime-type="application/vnd.jupyter.stderr"], .jp-RenderedText[data-mime-type="application/vnd.jupyter.stderr"]';
 
@@ -26,12 +27,13 @@ async function shot(name) {
   return path;
 }
 
-/** Tick positions of the level diagram: what changes when the levels move. */
-async function levelMarks() {
-  return page.$$eval(`${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg .role-mark path, ${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg .role-mark rect`, (marks) =>
-    marks.map((m) => m.getAttribute('transform') ?? m.getAttribute('d') ?? m.getAttribute('y') ?? ''),
+/** Geometry of the data marks of a result's plot (level ticks, spectrum lines): what changes when the data move. */
+async function plotMarks(output = cefOutput) {
+  return page.$$eval(`${output} figure.jp-Multiplet-plot[data-rendered="true"] svg .role-mark path, ${output} figure.jp-Multiplet-plot[data-rendered="true"] svg .role-mark rect`, (marks) =>
+    marks.map((m) => `${m.getAttribute('transform') ?? ''} ${m.getAttribute('d') ?? ''} ${m.getAttribute('y') ?? ''}`),
   );
 }
+const levelMarks = () => plotMarks(cefOutput);
 
 async function openNotebook(url) {
   await page.goto(url);
@@ -79,6 +81,10 @@ test('run all cells: no error output, result views and the level diagram rendere
   // The level diagram: an SVG with one tick per level (Dy3+, J = 15/2, Kramers: 8 doublets) and their labels.
   const marks = await levelMarks();
   assert.ok(marks.length >= 8, `level diagram marks: ${marks.length}`);
+  // The neutron spectrum computed from cefA: a plot with a drawn line.
+  await page.waitForSelector(`${spectrumOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg`, { timeout: 60_000 });
+  const spectrum = await plotMarks(spectrumOutput);
+  assert.ok(spectrum.some((d) => d.length > 100), 'the spectrum line has a path');
   // Tables with units in the headers.
   const headers = await page.$$eval(`${cefOutput} table.jp-Multiplet-table th`, (cells) => cells.map((c) => c.textContent));
   assert.ok(headers.includes('E (meV)'), `table headers: ${headers.join(' | ')}`);
@@ -96,8 +102,9 @@ test('run all cells: no error output, result views and the level diagram rendere
   copyFileSync(path, join(repoRoot, 'docs/screenshot-lab.png'));
 });
 
-test('moving B20 with the keyboard reruns the cell and redraws the level diagram in place', async () => {
+test('moving B20 with the keyboard reruns the cell and its dependant, redrawing both plots in place', async () => {
   const before = await levelMarks();
+  const spectrumBefore = await plotMarks(spectrumOutput);
   const summaryBefore = await page.textContent(`${cefOutput} .jp-Multiplet-summary`);
   const slider = page.getByLabel('B20 (meV)', { exact: true });
   await slider.focus();
@@ -110,6 +117,15 @@ test('moving B20 with the keyboard reruns the cell and redraws the level diagram
   await page.waitForSelector(`${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg`);
   const after = await levelMarks();
   assert.notDeepEqual(after, before, 'the level diagram changed');
+  await page.waitForFunction(
+    ([selector, old]) => {
+      const marks = Array.from(document.querySelectorAll(`${selector} figure.jp-Multiplet-plot[data-rendered="true"] svg .role-mark path`));
+      return marks.length > 0 && JSON.stringify(marks.map((m) => m.getAttribute('d'))) !== old;
+    },
+    [spectrumOutput, JSON.stringify(spectrumBefore.map((d) => d.split(' ')[1]))],
+    { timeout: 60_000 },
+  );
+  assert.notDeepEqual(await plotMarks(spectrumOutput), spectrumBefore, 'the dependent spectrum changed');
   // Same output, updated in place (update_display_data): still one crystal-field view, focus kept on the slider.
   assert.equal(await page.locator(cefOutput).count(), 1);
   assert.equal(await page.evaluate(() => document.activeElement?.getAttribute('aria-valuetext') !== null), true);
@@ -132,9 +148,11 @@ test('rerunning the sample marks the crystal field stale in the panel; Rerun sta
   await page.keyboard.press('Shift+Enter');
   await page.waitForSelector(`${stateResult('cefA')}[data-stale="true"]`, { timeout: 60_000 });
   assert.match(await page.textContent(stateResult('cefA')), /stale/);
+  await page.waitForSelector(`${stateResult('spectrumA')}[data-stale="true"]`);
   await shot('04-stale');
   await page.click('.jp-Multiplet-stateButton >> text=Rerun stale');
   await page.waitForSelector(`${stateResult('cefA')}[data-stale="false"]`, { timeout: 60_000 });
+  await page.waitForSelector(`${stateResult('spectrumA')}[data-stale="false"]`);
   assert.equal(await page.locator('.jp-Multiplet-statePanel .jp-Multiplet-staleMark').count(), 0);
   assert.equal(await page.locator(errorOutputs).count(), 0);
   await shot('05-stale-cleared');
