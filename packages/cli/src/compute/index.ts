@@ -16,6 +16,7 @@ import { entropy } from './entropy';
 import { neutronSpectrum } from './neutronSpectrum';
 import { cefFit } from './cefFit';
 import { exchange } from './exchange';
+import { spinIceMc } from './spinIceMc';
 
 export const COMPUTE_KINDS: Record<string, ComputeKind> = {
   'crystal-field': crystalField,
@@ -26,4 +27,5 @@ export const COMPUTE_KINDS: Record<string, ComputeKind> = {
   exchange,
   'neutron-spectrum': neutronSpectrum,
   'cef-fit': cefFit,
+  'spin-ice-mc': spinIceMc,
 };
