@@ -61,6 +61,11 @@ describe('magnetization', () => {
     expect(r.powder!.relativeChange).toBeLessThanOrEqual(1e-5);
     const reference = magnetization(ion, { temperaturesK: [5], fieldsT: [0.5, 2, 7], direction: 'powder', powder: { degree: 131 } });
     r.magnetizationMuB[0].forEach((v, j) => expect(Math.abs(v / reference.magnetizationMuB[0][j] - 1)).toBeLessThan(1e-4));
+    // More than 12 fields: the degree is searched on 12 of them, then the whole curve is computed at that degree.
+    const many = Array.from({ length: 30 }, (_, i) => 0.25 * (i + 1));
+    const searched = magnetization(ion, { temperaturesK: [5], fieldsT: many, direction: 'powder', powder: { tolerance: 1e-5 } });
+    const atDegree = magnetization(ion, { temperaturesK: [5], fieldsT: many, direction: 'powder', powder: { degree: searched.powder!.degree } });
+    expect(Array.from(searched.magnetizationMuB[0])).toEqual(Array.from(atDegree.magnetizationMuB[0]));
   });
 
   it('symmetry reduction (time reversal × rotations leaving H_CEF invariant) gives the plain inversion-half result', () => {
