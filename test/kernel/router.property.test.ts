@@ -3,9 +3,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { DELIMITER, createMessageFactory, createSigner, encodeMessage } from '@multiplet/kernel-bridge';
-import { createHarness, TEST_KEY } from './routerHarness';
+import { createCellSession } from '@multiplet/cells';
+import { createHarness, TEST_KEY, type Harness } from './routerHarness';
 
-const snapshot = (h: ReturnType<typeof createHarness>) =>
+const snapshot = (h: Harness) =>
   JSON.stringify({
     count: h.router.state.executionCount,
     history: h.router.state.history.query({ accessType: 'tail', output: true }),
@@ -78,6 +79,45 @@ describe('router properties (fast-check)', () => {
         }
       }),
       { numRuns: 200 },
+    );
+  });
+
+  it('with the real cells session: malformed requests leave the sample state byte-for-byte unchanged', async () => {
+    const h = createHarness(createCellSession({ notebookDir: process.cwd() }));
+    h.request('shell', 'execute_request', { code: '[sample] host\ncompound: Dy2Ti2O7\nion: Dy3+\nsiteSymmetry: D3d' });
+    await h.router.drained();
+    expect(h.session.state.names()).toEqual(['host']);
+    const before = h.session.state.serialize();
+    const count = h.router.state.executionCount;
+    const signer = createSigner(TEST_KEY);
+    const client = createMessageFactory({ session: 'fuzz-real' });
+    const msgType = fc.constantFrom('execute_request', 'complete_request', 'inspect_request', 'is_complete_request', 'history_request', 'comm_open', 'comm_msg', 'comm_info_request', 'kernel_info_request');
+    const content = fc.record(
+      {
+        code: fc.oneof(fc.integer(), fc.constant(null), fc.array(fc.string({ maxLength: 5 }), { maxLength: 2 }), fc.string({ maxLength: 60 })),
+        cursor_pos: fc.oneof(fc.integer({ min: -5, max: 80 }), fc.double(), fc.string({ maxLength: 3 })),
+        comm_id: fc.oneof(fc.string({ maxLength: 6 }), fc.integer()),
+        target_name: fc.string({ maxLength: 12 }),
+        data: fc.jsonValue({ maxDepth: 2 }),
+        hist_access_type: fc.oneof(fc.constantFrom('tail', 'range', 'search'), fc.string({ maxLength: 4 })),
+      },
+      { requiredKeys: [] },
+    );
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.tuple(fc.constantFrom('shell' as const, 'control' as const), msgType, content), { minLength: 1, maxLength: 5 }), async (requests) => {
+        for (const [s, type, c] of requests) {
+          // A string `code` in an execute_request is a real cell: only the malformed ones are fed here.
+          const body: Record<string, unknown> = { ...c };
+          if (type === 'execute_request' && typeof body.code === 'string') body.code = 42;
+          h.router.receive(s, encodeMessage([Buffer.from('p')], client.message(type, body, undefined), signer));
+          // Unsigned garbage alongside.
+          h.router.receive(s, [DELIMITER, Buffer.from(''), Buffer.from(JSON.stringify(body))]);
+        }
+        await withTimeout(h.router.drained(), 5000);
+        expect(h.session.state.serialize()).toBe(before);
+        expect(h.router.state.executionCount).toBe(count);
+      }),
+      { numRuns: 60 },
     );
   });
 });

@@ -1,6 +1,7 @@
 /** An in-memory harness around KernelRouter: signed requests in, decoded sends out (no sockets). */
 import { createMessageFactory, createSigner, decodeMessage, encodeMessage, KernelRouter, KERNEL_IDENTITY, type SocketName } from '@multiplet/kernel-bridge';
 import type { JupyterMessage } from '@multiplet/kernel-bridge';
+import type { CellSession } from '@multiplet/cells/protocol';
 import { createSessionDouble, type SessionDouble } from './sessionDouble';
 
 export const TEST_KEY = 'router-test-key';
@@ -11,9 +12,9 @@ export interface Sent {
   message: JupyterMessage;
 }
 
-export interface Harness {
+export interface Harness<S extends CellSession = SessionDouble> {
   router: KernelRouter;
-  session: SessionDouble;
+  session: S;
   sent: Sent[];
   logs: string[];
   shutdowns: boolean[];
@@ -23,10 +24,12 @@ export interface Harness {
   forRequest(msgId: string): Sent[];
 }
 
-export function createHarness(): Harness {
+export function createHarness(): Harness;
+export function createHarness<S extends CellSession>(session: S): Harness<S>;
+export function createHarness(given?: CellSession): Harness<CellSession> {
   const signer = createSigner(TEST_KEY);
   const client = createMessageFactory({ session: 'client', username: 'tester' });
-  const session = createSessionDouble();
+  const session = given ?? createSessionDouble();
   const sent: Sent[] = [];
   const logs: string[] = [];
   const shutdowns: boolean[] = [];
