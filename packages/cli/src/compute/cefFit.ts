@@ -12,6 +12,8 @@
  *                 transition?: {fromLevel, toLevel}}]
  *   spectra     [{temperatureK, energiesMeV, intensity, error, incidentEnergyMeV?, qInvAngstrom?, resolution?, lineShape?,
  *                 intrinsicFwhmMeV?, weight?}]
+ *   susceptibility [{temperaturesK, chiEmuPerMol, errorEmuPerMol, direction? ('powder' | [x,y,z]), sites?, meanFieldMolPerEmu?,
+ *                 fitScale?, weight?}]   magnetization [{temperatureK, fieldsT, momentMuB, errorMuB, direction?, …}] (joint fits)
  *   seed (default 0), starts (random starts besides `start`, default 0), chi2Margin (default 1),
  *   errorScaling ('data' default | 'residual'), mcmc {steps, walkers?, burnIn?, thin?, seed?} (optional)
  * Output: best {B (meV), errors (meV, 1σ), chi2, chi2Reduced, degreesOfFreedom, correlation, freeKeys, levelsMeV, peaks,
@@ -25,7 +27,7 @@ import { fitCef, type CefFitSolution, type CefFitSpec } from '@multiplet/physics
 import { sampleCefPosterior } from '@multiplet/physics/fit/sampleCefPosterior';
 import type { ComputeKind } from './index';
 
-const FIELDS = ['ion', 'symmetry', 'start', 'unit', 'free', 'bounds', 'peaks', 'spectra', 'seed', 'starts', 'chi2Margin', 'errorScaling', 'mcmc'];
+const FIELDS = ['ion', 'symmetry', 'start', 'unit', 'free', 'bounds', 'peaks', 'spectra', 'susceptibility', 'magnetization', 'seed', 'starts', 'chi2Margin', 'errorScaling', 'mcmc'];
 
 function optionalInteger(input: Record<string, unknown>, key: string, min: number): number | undefined {
   const v = input[key];
@@ -70,6 +72,8 @@ export const cefFit: ComputeKind = {
     }
     if (input.peaks !== undefined && !Array.isArray(input.peaks)) throw new InputError('peaks', input.peaks, 'a list of peaks');
     if (input.spectra !== undefined && !Array.isArray(input.spectra)) throw new InputError('spectra', input.spectra, 'a list of spectra');
+    if (input.susceptibility !== undefined && !Array.isArray(input.susceptibility)) throw new InputError('susceptibility', input.susceptibility, 'a list of χ(T) datasets');
+    if (input.magnetization !== undefined && !Array.isArray(input.magnetization)) throw new InputError('magnetization', input.magnetization, 'a list of M(B) datasets');
     if (input.errorScaling !== undefined && input.errorScaling !== 'data' && input.errorScaling !== 'residual')
       throw new InputError('errorScaling', input.errorScaling, "'data' or 'residual'");
     if (input.chi2Margin !== undefined && (typeof input.chi2Margin !== 'number' || !(input.chi2Margin >= 0)))
@@ -82,6 +86,8 @@ export const cefFit: ComputeKind = {
       bounds,
       peaks: input.peaks as CefFitSpec['peaks'],
       spectra: input.spectra as CefFitSpec['spectra'],
+      susceptibility: input.susceptibility as CefFitSpec['susceptibility'],
+      magnetization: input.magnetization as CefFitSpec['magnetization'],
     };
     const seed = optionalInteger(input, 'seed', 0) ?? 0;
     const report = fitCef(spec, {
@@ -129,6 +135,7 @@ export const cefFit: ComputeKind = {
         peaks: best.peakAssignments.map((a, i) => ({ ...a, energyResidual: best.peakEnergyResiduals[i] })),
         peakScales: best.peakScales,
         spectrumScales: best.spectrumScales,
+        bulkScales: best.bulkScales,
       },
       minima: report.minima.map(solutionJson),
       startsRun: report.startsRun,

@@ -1,5 +1,6 @@
 /**
  * Fit crystal-field parameters B_n^m (restricted to the site symmetry) to neutron peak lists and/or measured spectra,
+ * optionally jointly with χ(T) and M(B) data (each dataset with its own weight and optional scale factor),
  * reporting every distinct minimum within a χ² margin with its uncertainties, correlations and per-dataset residuals.
  *
  * Local fits are Levenberg–Marquardt (levenbergMarquardt.ts) in the scaled parameter space of cef/cefFitModel.ts,
@@ -20,7 +21,14 @@ import { multiStartSearch } from './multiStartSearch';
 import type { LevenbergMarquardtResult } from './levenbergMarquardt';
 import type { LeastSquaresProblem } from './types';
 
-export type { CefFitSpec, PeakObservation, SpectrumObservation, PeakAssignment } from './cef/cefFitModel';
+export type {
+  CefFitSpec,
+  PeakObservation,
+  SpectrumObservation,
+  SusceptibilityObservation,
+  MagnetizationObservation,
+  PeakAssignment,
+} from './cef/cefFitModel';
 
 export interface FitCefOptions {
   /** Random starts in addition to the given start (0: a local fit only). Default 0. */
@@ -45,8 +53,15 @@ export interface CefFitSolution {
   readonly chi2: number;
   readonly chi2Reduced: number;
   readonly degreesOfFreedom: number;
-  /** χ² split by dataset: the peak list, then one entry per spectrum. */
-  readonly chi2ByDataset: { readonly peaks: number; readonly spectra: readonly number[] };
+  /** χ² split by dataset: the peak list, one entry per spectrum, per χ(T) and per M(B) dataset. */
+  readonly chi2ByDataset: {
+    readonly peaks: number;
+    readonly spectra: readonly number[];
+    readonly susceptibility: readonly number[];
+    readonly magnetization: readonly number[];
+  };
+  /** Profiled (or 1) scale per χ(T) and M(B) dataset. */
+  readonly bulkScales: { readonly susceptibility: readonly number[]; readonly magnetization: readonly number[] };
   /** Per peak: the transition it is assigned to and the computed energy (and intensity). */
   readonly peakAssignments: readonly PeakAssignment[];
   /** Energy residual per peak, (E_calc − E_obs)/σ. */
@@ -68,7 +83,7 @@ export interface CefFitReport {
   readonly minima: readonly CefFitSolution[];
   readonly startsRun: number;
   readonly distinctMinimaFound: number;
-  /** Diagonalisations of H_CEF over the whole search. */
+  /** Model evaluations (one H_CEF diagonalisation for the neutron data each; χ and M diagonalise again). */
   readonly hamiltonianEvaluations: number;
   readonly warnings: readonly string[];
 }
@@ -101,7 +116,13 @@ export function describeCefSolution(model: CefFitModel, fit: LevenbergMarquardtR
     chi2: fit.chi2,
     chi2Reduced: dof > 0 ? fit.chi2 / dof : fit.chi2,
     degreesOfFreedom: dof,
-    chi2ByDataset: { peaks: evaluation.peakChi2, spectra: evaluation.spectrumChi2 },
+    chi2ByDataset: {
+      peaks: evaluation.peakChi2,
+      spectra: evaluation.spectrumChi2,
+      susceptibility: evaluation.bulkChi2.susceptibility,
+      magnetization: evaluation.bulkChi2.magnetization,
+    },
+    bulkScales: evaluation.bulkScales,
     peakAssignments: evaluation.assignments,
     peakEnergyResiduals: model.peaks.map((peak) => (evaluation.assignments[peak.index].computedMeV - peak.energyMeV) / peak.errorMeV),
     peakScales: evaluation.peakScales,

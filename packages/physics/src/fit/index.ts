@@ -13,7 +13,17 @@ export { ensembleSampler, integratedAutocorrelationTime } from './ensembleSample
 export type { EnsembleSamplerOptions, EnsembleSamplerResult, EnsembleStart } from './ensembleSampler';
 export { solveAssignment } from './solveAssignment';
 export { fitCef, cefLeastSquaresProblem, describeCefSolution } from './fitCef';
-export type { FitCefOptions, CefFitSolution, CefFitReport, CefFitSpec, PeakObservation, SpectrumObservation, PeakAssignment } from './fitCef';
+export type {
+  FitCefOptions,
+  CefFitSolution,
+  CefFitReport,
+  CefFitSpec,
+  PeakObservation,
+  SpectrumObservation,
+  SusceptibilityObservation,
+  MagnetizationObservation,
+  PeakAssignment,
+} from './fitCef';
 export { sampleCefPosterior } from './sampleCefPosterior';
 export type { SampleCefPosteriorOptions, CefPosterior, PosteriorSummary } from './sampleCefPosterior';
 export { CefFitModel } from './cef/cefFitModel';

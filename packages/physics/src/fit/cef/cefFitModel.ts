@@ -28,6 +28,7 @@ import { checkSpectrumOptions, spectrumFromTransitions, type NeutronSpectrumOpti
 import { thermalTransitions } from '../../neutron/cefTransitions';
 import { LINE_SHAPES, type LineShapeKind } from '../../neutron/lineShape';
 import { solveAssignment } from '../solveAssignment';
+import { magnetization as thermoMagnetization, vanVleckSusceptibility, type SiteFrameName } from '../../thermo';
 
 /** One observed peak. */
 export interface PeakObservation {
@@ -58,6 +59,35 @@ export interface SpectrumObservation {
   readonly weight?: number;
 }
 
+/** A susceptibility dataset χ(T) for joint fits (per mole of rare-earth ions, CGS emu/mol). */
+export interface SusceptibilityObservation {
+  readonly temperaturesK: readonly number[];
+  readonly chiEmuPerMol: readonly number[];
+  readonly errorEmuPerMol: readonly number[];
+  /** Field direction in the crystal frame, or 'powder' (default). */
+  readonly direction?: readonly [number, number, number] | 'powder';
+  /** Site frames as in thermo/siteFrames (default 'single'). */
+  readonly sites?: SiteFrameName;
+  /** Molecular-field constant λ (mol/emu): 1/χ = 1/χ_CEF − λ. Default 0. */
+  readonly meanFieldMolPerEmu?: number;
+  /** Fit a scale factor for this dataset (profiled). Default false. */
+  readonly fitScale?: boolean;
+  readonly weight?: number;
+}
+
+/** A magnetization dataset M(B) at one temperature for joint fits (μB per rare-earth ion). */
+export interface MagnetizationObservation {
+  readonly temperatureK: number;
+  readonly fieldsT: readonly number[];
+  readonly momentMuB: readonly number[];
+  readonly errorMuB: readonly number[];
+  readonly direction?: readonly [number, number, number] | 'powder';
+  readonly sites?: SiteFrameName;
+  readonly meanFieldMolPerEmu?: number;
+  readonly fitScale?: boolean;
+  readonly weight?: number;
+}
+
 /** What to fit. Parameters in meV (convert at the edges with normalizeCefParameters). */
 export interface CefFitSpec {
   readonly ion: string | Ion;
@@ -70,6 +100,9 @@ export interface CefFitSpec {
   readonly bounds?: Readonly<Record<string, readonly [number, number]>>;
   readonly peaks?: readonly PeakObservation[];
   readonly spectra?: readonly SpectrumObservation[];
+  /** Bulk data for joint fits (thermo module: Van Vleck χ and M(B) from the same crystal field). */
+  readonly susceptibility?: readonly SusceptibilityObservation[];
+  readonly magnetization?: readonly MagnetizationObservation[];
 }
 
 interface PreparedPeak {
@@ -106,6 +139,9 @@ export interface CefModelEvaluation {
   readonly spectrumScales: [number, number][];
   readonly peakChi2: number;
   readonly spectrumChi2: number[];
+  /** χ² and profiled scale (1 unless fitted) per susceptibility and magnetization dataset. */
+  readonly bulkChi2: { susceptibility: number[]; magnetization: number[] };
+  readonly bulkScales: { susceptibility: number[]; magnetization: number[] };
   readonly levels: LevelStrengths;
 }
 
@@ -134,6 +170,8 @@ export class CefFitModel {
   readonly peakGroups: { temperatureK: number; incidentEnergyMeV?: number; hasIntensity: boolean }[];
   readonly temperatures: number[];
   readonly spectra: SpectrumObservation[];
+  readonly susceptibility: SusceptibilityObservation[];
+  readonly magnetization: MagnetizationObservation[];
   readonly residualCount: number;
   /** Profiled linear parameters (scales and backgrounds), for the degrees of freedom. */
   readonly profiledCount: number;
@@ -174,7 +212,6 @@ export class CefFitModel {
     const spectraIn = spec.spectra ?? [];
     if (!Array.isArray(peaksIn)) throw new InputError('peaks', peaksIn, 'a list of peaks');
     if (!Array.isArray(spectraIn)) throw new InputError('spectra', spectraIn, 'a list of spectra');
-    if (peaksIn.length === 0 && spectraIn.length === 0) throw new InputError('peaks', peaksIn, 'at least one observed peak or spectrum (no data to fit)');
     const groupKeys = new Map<string, number>();
     this.peakGroups = [];
     this.peaks = peaksIn.map((peak, i) => {
@@ -232,9 +269,54 @@ export class CefFitModel {
       if (s.lineShape !== undefined && !LINE_SHAPES.includes(s.lineShape)) throw new InputError(`${f}.lineShape`, s.lineShape, LINE_SHAPES.join(', '));
       return s;
     });
+    const sameLength = (f: string, values: unknown, n: number, what: string, test: (v: number) => boolean = () => true) => {
+      if (!Array.isArray(values) || values.length !== n) throw new InputError(f, values, `${n} values (${what}), one per point`);
+      values.forEach((v, i) => finiteNumber(v, `${f}[${i}]`, what, test));
+    };
+    const checkBulkCommon = (f: string, d: { direction?: unknown; weight?: unknown; meanFieldMolPerEmu?: unknown }) => {
+      if (d.direction !== undefined && d.direction !== 'powder' && !(Array.isArray(d.direction) && d.direction.length === 3 && d.direction.every((v) => typeof v === 'number' && Number.isFinite(v)) && Math.hypot(...(d.direction as number[])) > 0))
+        throw new InputError(`${f}.direction`, d.direction, "'powder' or a non-zero [x, y, z]");
+      if (d.weight !== undefined) finiteNumber(d.weight, `${f}.weight`, 'a positive weight', (v) => v > 0);
+      if (d.meanFieldMolPerEmu !== undefined) finiteNumber(d.meanFieldMolPerEmu, `${f}.meanFieldMolPerEmu`, 'a finite λ in mol/emu');
+    };
+    const susceptibilityIn = spec.susceptibility ?? [];
+    const magnetizationIn = spec.magnetization ?? [];
+    if (!Array.isArray(susceptibilityIn)) throw new InputError('susceptibility', susceptibilityIn, 'a list of χ(T) datasets');
+    if (!Array.isArray(magnetizationIn)) throw new InputError('magnetization', magnetizationIn, 'a list of M(B) datasets');
+    this.susceptibility = susceptibilityIn.map((d, k) => {
+      const f = `susceptibility[${k}]`;
+      if (d === null || typeof d !== 'object') throw new InputError(f, d, 'a dataset {temperaturesK, chiEmuPerMol, errorEmuPerMol}');
+      const n = Array.isArray(d.temperaturesK) ? d.temperaturesK.length : 0;
+      if (n === 0) throw new InputError(`${f}.temperaturesK`, d.temperaturesK, 'a non-empty list of temperatures in K');
+      sameLength(`${f}.temperaturesK`, d.temperaturesK, n, 'a temperature > 0 K', (v) => v > 0);
+      sameLength(`${f}.chiEmuPerMol`, d.chiEmuPerMol, n, 'a finite χ in emu/mol');
+      sameLength(`${f}.errorEmuPerMol`, d.errorEmuPerMol, n, 'a positive error in emu/mol', (v) => v > 0);
+      checkBulkCommon(f, d);
+      return d;
+    });
+    this.magnetization = magnetizationIn.map((d, k) => {
+      const f = `magnetization[${k}]`;
+      if (d === null || typeof d !== 'object') throw new InputError(f, d, 'a dataset {temperatureK, fieldsT, momentMuB, errorMuB}');
+      finiteNumber(d.temperatureK, `${f}.temperatureK`, 'a temperature > 0 K', (v) => v > 0);
+      const n = Array.isArray(d.fieldsT) ? d.fieldsT.length : 0;
+      if (n === 0) throw new InputError(`${f}.fieldsT`, d.fieldsT, 'a non-empty list of fields in T');
+      sameLength(`${f}.fieldsT`, d.fieldsT, n, 'a finite field in T');
+      sameLength(`${f}.momentMuB`, d.momentMuB, n, 'a finite moment in μB per ion');
+      sameLength(`${f}.errorMuB`, d.errorMuB, n, 'a positive error in μB', (v) => v > 0);
+      checkBulkCommon(f, d);
+      return d;
+    });
+    if (peaksIn.length === 0 && spectraIn.length === 0 && this.susceptibility.length === 0 && this.magnetization.length === 0)
+      throw new InputError('peaks', peaksIn, 'at least one observed peak, spectrum or bulk dataset (no data to fit)');
     this.temperatures = [...new Set(this.peaks.map((p) => p.temperatureK))];
-    this.residualCount = this.peaks.reduce((s, p) => s + (p.intensity === undefined ? 1 : 2), 0) + this.spectra.reduce((s, sp) => s + sp.energiesMeV.length, 0);
-    this.profiledCount = this.peakGroups.filter((g) => g.hasIntensity).length + 2 * this.spectra.length;
+    this.residualCount =
+      this.peaks.reduce((s, p) => s + (p.intensity === undefined ? 1 : 2), 0) +
+      this.spectra.reduce((s, sp) => s + sp.energiesMeV.length, 0) +
+      this.susceptibility.reduce((s, d) => s + d.temperaturesK.length, 0) +
+      this.magnetization.reduce((s, d) => s + d.fieldsT.length, 0);
+    this.profiledCount =
+      this.peakGroups.filter((g) => g.hasIntensity).length + 2 * this.spectra.length +
+      [...this.susceptibility, ...this.magnetization].filter((d) => d.fitScale).length;
 
     // Search box: a user bound, else |B_k| ‖O_k‖ ≤ 1.5 × (largest observed energy, at least 5 meV).
     const largestEnergy = Math.max(5, ...this.peaks.map((p) => Math.abs(p.energyMeV)), ...this.spectra.map((s) => Math.max(...s.energiesMeV.map(Math.abs))));
@@ -464,6 +546,42 @@ export class CefFitModel {
       }
       spectrumChi2.push(chi2);
     }
-    return { residuals, assignments, peakScales, spectrumScales, peakChi2, spectrumChi2, levels };
+    // --- bulk data (joint fits): χ(T) and M(B) from the thermo module with the same parameters
+    const single = { J: this.ion.J, gJ: this.ion.gJ, parametersMeV: parameters };
+    const bulk = (model: ArrayLike<number>, data: readonly number[], errors: readonly number[], fitScale: boolean | undefined, weight: number | undefined) => {
+      let scale = 1;
+      if (fitScale) {
+        let num = 0, den = 0;
+        for (let i = 0; i < data.length; i++) {
+          const w = 1 / (errors[i] * errors[i]);
+          num += w * model[i] * data[i];
+          den += w * model[i] * model[i];
+        }
+        scale = den > 0 ? num / den : 1;
+      }
+      let chi2 = 0;
+      const root = Math.sqrt(weight ?? 1);
+      for (let i = 0; i < data.length; i++) {
+        const r = (root * (scale * model[i] - data[i])) / errors[i];
+        residuals[offset++] = r;
+        chi2 += r * r;
+      }
+      return { chi2, scale };
+    };
+    const bulkChi2 = { susceptibility: [] as number[], magnetization: [] as number[] };
+    const bulkScales = { susceptibility: [] as number[], magnetization: [] as number[] };
+    for (const d of this.susceptibility) {
+      const chi = vanVleckSusceptibility(single, { temperaturesK: d.temperaturesK, direction: d.direction ?? 'powder', sites: d.sites, meanFieldMolPerEmu: d.meanFieldMolPerEmu }).chiEmuPerMol;
+      const { chi2, scale } = bulk(chi, d.chiEmuPerMol, d.errorEmuPerMol, d.fitScale, d.weight);
+      bulkChi2.susceptibility.push(chi2);
+      bulkScales.susceptibility.push(scale);
+    }
+    for (const d of this.magnetization) {
+      const m = thermoMagnetization(single, { temperaturesK: [d.temperatureK], fieldsT: d.fieldsT, direction: d.direction ?? 'powder', sites: d.sites, meanFieldMolPerEmu: d.meanFieldMolPerEmu }).magnetizationMuB[0];
+      const { chi2, scale } = bulk(m, d.momentMuB, d.errorMuB, d.fitScale, d.weight);
+      bulkChi2.magnetization.push(chi2);
+      bulkScales.magnetization.push(scale);
+    }
+    return { residuals, assignments, peakScales, spectrumScales, peakChi2, spectrumChi2, bulkChi2, bulkScales, levels };
   }
 }
