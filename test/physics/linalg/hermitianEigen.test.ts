@@ -371,3 +371,20 @@ describe('hermitianEigen: bad input', () => {
     expect(() => hermitianEigen({ n: 0, re: new Float64Array(0), im: new Float64Array(0) })).toThrow(InputError);
   });
 });
+
+describe('hermitianEigen: extreme magnitudes', () => {
+  it('matrices scaled by 1e-200 and 1e200 give the scaled spectrum and the same vectors; the zero matrix is exact', () => {
+    const rng = createRandom(21);
+    const a = randomHermitian(9, rng);
+    const ref = hermitianEigen(a);
+    for (const s of [1e-200, 1e200]) {
+      const b = { n: 9, re: a.re.map((x) => x * s), im: a.im.map((x) => x * s) };
+      const r = hermitianEigen(b);
+      for (let k = 0; k < 9; k++) expect(r.values[k] / s).toBeCloseTo(ref.values[k], 12);
+      expect(maxDiff(r.vectors, ref.vectors)).toBeLessThan(1e-12);
+    }
+    const z = hermitianEigen(zeros(4));
+    expect(Array.from(z.values)).toEqual([0, 0, 0, 0]);
+    expect(orthonormalityError(z.vectors)).toBe(0);
+  });
+});

@@ -38,8 +38,8 @@ export interface HermitianEigenOptions {
   /** Compute eigenvectors (default true). Without them the solver is several times faster. */
   vectors?: boolean;
   /**
-   * Largest tolerated |a_ij − conj(a_ji)| relative to max(1, max|a_ij|) (default 1e-9). The matrix actually
-   * diagonalised is the Hermitian part (A + A†)/2.
+   * Largest tolerated |a_ij − conj(a_ji)| relative to the largest |Re a_ij| + |Im a_ij| (default 1e-9). The
+   * matrix actually diagonalised is the Hermitian part (A + A†)/2.
    */
   hermitianTolerance?: number;
   /** Field path used in error messages (default 'matrix'). */
@@ -153,7 +153,7 @@ export function solveInto(
   const n = a.n;
   if (ws.n !== n) throw new InputError(`${field}.n`, n, `dimension ${ws.n} (the workspace's)`);
   const wantVectors = options.vectors !== false;
-  loadHermitianPart(ws, a, field, options.hermitianTolerance ?? 1e-9);
+  const scale = loadHermitianPart(ws, a, field, options.hermitianTolerance ?? 1e-9);
   tridiagonalize(ws);
   if (wantVectors) {
     ws.z.fill(0);
@@ -176,7 +176,7 @@ export function solveInto(
     order[j + 1] = oi;
   }
   const values = new Float64Array(n);
-  for (let i = 0; i < n; i++) values[i] = d[order[i]];
+  for (let i = 0; i < n; i++) values[i] = d[order[i]] * scale;
   if (!wantVectors) return { values, vectors: null };
 
   backTransform(ws);
@@ -209,11 +209,15 @@ export function solveInto(
   return { values, vectors: { n, re: outRe, im: outIm } };
 }
 
-/** Copy (A + A†)/2 into the workspace, checking finiteness and Hermiticity. */
-function loadHermitianPart(ws: EigenWorkspace, a: ComplexMatrix, field: string, tolerance: number): void {
+/**
+ * Copy (A + A†)/(2s) into the workspace, checking finiteness and Hermiticity; s = max_ij(|Re a_ij| + |Im a_ij|)
+ * (1 for the zero matrix) is returned. Working on A/s keeps the thresholds of the reduction and of the QL
+ * iteration meaningful for matrices of any magnitude (1e-200 or 1e200).
+ */
+function loadHermitianPart(ws: EigenWorkspace, a: ComplexMatrix, field: string, tolerance: number): number {
   const n = ws.n;
   const are = a.re, aim = a.im, wr = ws.ar, wi = ws.ai;
-  let scale = 1, worst = 0, worstI = 0, worstJ = 0;
+  let scale = 0, worst = 0, worstI = 0, worstJ = 0;
   for (let k = 0; k < n * n; k++) {
     const x = are[k], y = aim[k];
     if (!Number.isFinite(x) || !Number.isFinite(y)) {
@@ -223,9 +227,11 @@ function loadHermitianPart(ws: EigenWorkspace, a: ComplexMatrix, field: string, 
     const m = Math.abs(x) + Math.abs(y);
     if (m > scale) scale = m;
   }
+  if (scale === 0) scale = 1;
+  const inv = 1 / scale;
   for (let i = 0; i < n; i++) {
     const ii = i * n + i;
-    wr[ii] = are[ii];
+    wr[ii] = are[ii] * inv;
     wi[ii] = 0;
     const dev = Math.abs(aim[ii]);
     if (dev > worst) {
@@ -238,8 +244,8 @@ function loadHermitianPart(ws: EigenWorkspace, a: ComplexMatrix, field: string, 
       if (dev2 > worst) {
         worst = dev2; worstI = i; worstJ = j;
       }
-      const sr = 0.5 * (are[ij] + are[ji]);
-      const si = 0.5 * (aim[ij] - aim[ji]);
+      const sr = 0.5 * inv * (are[ij] + are[ji]);
+      const si = 0.5 * inv * (aim[ij] - aim[ji]);
       wr[ij] = sr; wi[ij] = si;
       wr[ji] = sr; wi[ji] = -si;
     }
@@ -252,6 +258,7 @@ function loadHermitianPart(ws: EigenWorkspace, a: ComplexMatrix, field: string, 
         ? 'a real diagonal element (the matrix must be Hermitian)'
         : `the complex conjugate of element [${worstJ}][${worstI}] = [${are[worstJ * n + worstI]}, ${aim[worstJ * n + worstI]}] (the matrix must be Hermitian)`,
     );
+  return scale;
 }
 
 /**
@@ -272,16 +279,17 @@ function tridiagonalize(ws: EigenWorkspace): void {
     const s = k + 1; // first index of the reflection's support
     h[k] = 0;
     if (k < n - 2) {
-      let alpha2 = 0;
-      for (let i = s; i < n; i++) {
+      let tail2 = 0;
+      for (let i = s + 1; i < n; i++) {
         const x = ar[i * n + k], y = ai[i * n + k];
-        alpha2 += x * x + y * y;
+        tail2 += x * x + y * y;
       }
       const x0r = ar[s * n + k], x0i = ai[s * n + k];
       const x0 = fastHypot(x0r, x0i);
-      const tail2 = alpha2 - x0 * x0;
-      // Skip when the column below the sub-diagonal is already zero (tail negligible relative to the column).
-      if (tail2 > 1e-300 && tail2 > 1e-32 * alpha2) {
+      const alpha2 = tail2 + x0 * x0;
+      // Skip when the column below the sub-diagonal is already zero (the matrix is scaled to max entry 1, so
+      // squares underflow only for entries below ~1e-154 of the largest, which are negligible).
+      if (tail2 > 0) {
         const alpha = Math.sqrt(alpha2);
         let phr = 1, phi = 0;
         if (x0 > 0) {
