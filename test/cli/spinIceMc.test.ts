@@ -41,3 +41,29 @@ describe('multiplet compute spin-ice-mc (built CLI)', () => {
     expect(compute('spin-ice-mc', { L: 1, temperaturesK: [1], sweeps: 100, seed: 1, J4K: 2 }).stderr).toContain('J4K');
   });
 });
+
+describe('multiplet compute structure-factor (built CLI)', () => {
+  beforeAll(() => {
+    execFileSync(process.execPath, [join(root, 'scripts/build.mjs')], { cwd: root, stdio: 'pipe' });
+  });
+
+  it('powder I(Q) in barn/sr per ion: the high-temperature curve is the paramagnet, spin-ice correlations reshape it', () => {
+    const r = compute('structure-factor', {
+      L: 2, temperaturesK: [0.3, 300], J1K: -3, momentMuB: 10, latticeConstantAngstrom: 10.1, sweeps: 200, seed: 2,
+      QInvAngstrom: [0.4, 1.0, 1.6, 2.4], ion: 'Ho3+', snapshots: 40,
+    });
+    expect(r.code).toBe(0);
+    const hi = r.out.intensityBarnPerSrPerIon[1];
+    r.out.paramagnetBarnPerSrPerIon.forEach((p: number, k: number) => expect(Math.abs(hi[k] / p - 1)).toBeLessThan(0.1));
+    // Ice correlations at 0.3 K reshape the pattern: somewhere it differs from the paramagnet by more than 10 %.
+    const diff = r.out.differenceBarnPerSrPerIon[0].map((d: number, k: number) => Math.abs(d) / r.out.paramagnetBarnPerSrPerIon[k]);
+    expect(Math.max(...diff)).toBeGreaterThan(0.1);
+    expect(r.out.differenceBarnPerSrPerIon[1].every((d: number) => d === 0)).toBe(true);
+  });
+
+  it('rejects a negative Q', () => {
+    const r = compute('structure-factor', { L: 1, temperaturesK: [1], sweeps: 40, seed: 1, QInvAngstrom: [-1] });
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain('QInvAngstrom[0]');
+  });
+});

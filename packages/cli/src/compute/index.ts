@@ -17,6 +17,7 @@ import { neutronSpectrum } from './neutronSpectrum';
 import { cefFit } from './cefFit';
 import { exchange } from './exchange';
 import { spinIceMc } from './spinIceMc';
+import { structureFactor } from './structureFactor';
 
 export const COMPUTE_KINDS: Record<string, ComputeKind> = {
   'crystal-field': crystalField,
@@ -28,4 +29,5 @@ export const COMPUTE_KINDS: Record<string, ComputeKind> = {
   'neutron-spectrum': neutronSpectrum,
   'cef-fit': cefFit,
   'spin-ice-mc': spinIceMc,
+  'structure-factor': structureFactor,
 };
