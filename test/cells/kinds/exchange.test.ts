@@ -56,6 +56,27 @@ describe('[exchange] cell', () => {
     expect(() => compile(r.data[VEGA_MIME] as never)).not.toThrow();
   });
 
+  it('moves one Stevens parameter: first order follows the states, the gap moves; two scans give two panels', async () => {
+    const session = createCellSession({ notebookDir: '.' });
+    await runOk(session, SAMPLE_CELL.replace('Dy3+', 'Yb3+'));
+    await runOk(session, `[crystal-field] cefYb\nB:\n  B20: 0.4 meV\n  B40: 0.02 meV\n  B43: 0.15 meV\n`);
+    const r = await runOk(
+      session,
+      `[exchange] exScan\ncef: cefYb\nisotropic: 0.005 meV\ntwoSiteCheck: false\nscanParameter: B40\nscanValues: 0.015 meV .. 0.025 meV / 3\nexchangeScale: [0.5, 1]\n`,
+    );
+    const result = (r.data[MULTIPLET_MIME] as { result: Record<string, any> }).result;
+    expect(result.scanParameter.key).toBe('B40');
+    const rows = result.scanParameter.rows;
+    expect(rows.map((row: { value: number }) => row.value)).toEqual([0.015, 0.02, 0.025]);
+    // The middle point is the crystal-field result itself: identical to the unscanned couplings.
+    expect(rows[1].second.Jzz).toBeCloseTo(result.second.Jzz, 14);
+    expect(rows[0].gapMeV).not.toBeCloseTo(rows[2].gapMeV, 3);
+    const spec = r.data[VEGA_MIME] as { vconcat: unknown[] };
+    expect(spec.vconcat).toHaveLength(2);
+    expect(() => compile(spec as never)).not.toThrow();
+    expect(r.data['text/plain']).toMatch(/scan of B40/);
+  });
+
   it('errors: a crystal field without a doublet ground state; isotropic together with thetaCW', async () => {
     const session = createCellSession({ notebookDir: '.' });
     await runOk(session, SAMPLE_CELL.replace('Dy3+', 'Pr3+'));
@@ -65,5 +86,7 @@ describe('[exchange] cell', () => {
     const e2 = errorOf(await run(session, `[exchange] exPr\ncef: cefPr\nisotropic: 0.01 meV\nthetaCW: 1 K\n`));
     expect(e2.evalue).toMatch(/line 4/);
     expect(e2.evalue).toMatch(/thetaCW/);
+    const e3 = errorOf(await run(session, `[exchange] exPr\ncef: cefPr\nisotropic: 0.01 meV\nscanValues: [0.1 meV]\n`));
+    expect(e3.evalue).toMatch(/scanParameter/);
   });
 });

@@ -14,6 +14,8 @@
  * README's exchange section.
  */
 import { getIon } from '@multiplet/physics/ions';
+import { InputError } from '@multiplet/physics/errors';
+import { CEF_PARAMETER_KEYS, parseParameterKey, parameterKey } from '@multiplet/physics/cef';
 import { KELVIN_IN_MEV } from '@multiplet/physics/units';
 import {
   pseudospinSiteFromParameters,
@@ -48,6 +50,8 @@ interface ExchangeInput {
   cefScale?: number[];
   exchangeScale?: number[];
   furtherNeighbours: boolean;
+  scanParameter?: string;
+  scanValues?: number[];
 }
 
 type Couplings = { Jzz: number; Jpm: number; Jpmpm: number; Jzpm: number; residualMeV: number; matrixLocalMeV: number[][] };
@@ -78,6 +82,8 @@ export interface ExchangeResult {
   scanExchangeScale: ExchangeScanRow[] | null;
   /** Couplings mediated by a virtually excited common neighbour (J1 correction, J2, J3a, J3b), or null. */
   furtherNeighbours: MediatedCoupling[] | null;
+  /** Scan of one Stevens parameter (values in meV; the others as in the crystal-field result). */
+  scanParameter: { key: string; rows: ExchangeScanRow[] } | null;
 }
 
 const ENERGY_UNITS = ['meV', 'K', 'cm-1', 'THz', 'ueV'] as const;
@@ -162,6 +168,18 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       unit: '',
       doc: 'Scan: all microscopic couplings scaled by these factors, e.g. "0.5 .. 2 / 5".',
     },
+    scanParameter: {
+      type: 'string',
+      maxLength: 6,
+      suggestions: CEF_PARAMETER_KEYS,
+      patternText: 'a Stevens parameter name such as B20 or B43',
+      doc: 'Scan: move this Stevens parameter of the crystal-field result through scanValues (the gap moves with it).',
+    },
+    scanValues: {
+      type: 'range',
+      unit: 'meV',
+      doc: 'Values of scanParameter, e.g. "-0.5 meV .. -0.1 meV / 9".',
+    },
     furtherNeighbours: {
       type: 'boolean',
       default: false,
@@ -178,6 +196,11 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
     if (input.isotropic === undefined && input.matrix === undefined && !input.dipolar && input.thetaCW === undefined)
       ctx.fail('isotropic', undefined, 'a coupling: isotropic, matrix, dipolar: true or thetaCW');
     if (input.bond[0] === input.bond[1]) ctx.fail('bond', input.bond, 'two different sublattices');
+    if (input.scanParameter !== undefined) {
+      const index = parseParameterKey(input.scanParameter);
+      if (!index) ctx.fail('scanParameter', input.scanParameter, 'a Stevens parameter name such as B20, B43 or B4-3');
+      if (input.scanValues === undefined) ctx.fail('scanParameter', input.scanParameter, 'scanValues beside it, e.g. "scanValues: -0.5 meV .. -0.1 meV / 9"');
+    } else if (input.scanValues !== undefined) ctx.fail('scanValues', input.scanValues, 'a scanParameter naming the Stevens parameter to move');
   },
   run(input, ctx) {
     const cef = ctx.result<CrystalFieldResult>(input.cef);
@@ -215,6 +238,23 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
     const scanExchangeScale = input.exchangeScale
       ? exchangeScan(input.exchangeScale.map((l) => ({ value: l, siteI: site, siteJ: site, couplingGlobalMeV: scaledCoupling(k, l) })), bond, { task: ctx.task })
       : null;
+    let scanParameter: ExchangeResult['scanParameter'] = null;
+    if (input.scanParameter !== undefined && input.scanValues !== undefined) {
+      const index = parseParameterKey(input.scanParameter)!;
+      const key = parameterKey(index.n, index.m);
+      const points = input.scanValues.map((value) => {
+        let moved;
+        try {
+          moved = pseudospinSiteFromParameters(ion, { ...cef.parametersMeV, [key]: value }, { field: 'cef' });
+        } catch (error) {
+          if (error instanceof InputError)
+            ctx.fail('scanValues', value, `values of ${key} for which the ground level stays an isolated doublet (${key} = ${value} meV: ${error.message})`);
+          throw error;
+        }
+        return { value, siteI: moved, siteJ: moved, couplingGlobalMeV: k };
+      });
+      scanParameter = { key, rows: exchangeScan(points, bond, { task: ctx.task }) };
+    }
     return {
       ion: ion.name,
       cef: input.cef,
@@ -238,6 +278,7 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       scanCefScale,
       scanExchangeScale,
       furtherNeighbours: input.furtherNeighbours ? furtherNeighbourExchange(site, a!, spec) : null,
+      scanParameter,
     };
   },
   render(r, info) {
@@ -259,12 +300,19 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       ['two-site check', r.twoSiteCheckMeV === null ? 'not run' : `max |exact − effective| = ${formatNumber(r.twoSiteCheckMeV, 3)} meV`],
       ['θ_CW of the model (mean field)', `${formatNumber(r.thetaCWModelK, 4)} K`],
     ];
+    const scanColumns = [{ name: 'scan value' }, { name: 'gap', unit: 'meV' }, ...COUPLING_NAMES.map(([, label]) => ({ name: `${label} (2nd)`, unit: 'meV' }))];
+    const scans: Array<[string, ExchangeScanRow[]]> = [];
+    if (r.scanCefScale) scans.push(['CEF scale', r.scanCefScale]);
+    if (r.scanParameter) scans.push([`${r.scanParameter.key} (meV)`, r.scanParameter.rows]);
+    if (r.scanExchangeScale) scans.push(['exchange scale', r.scanExchangeScale]);
+    const scanRows = (rowsOf: ExchangeScanRow[]) => rowsOf.map((row) => [row.value, row.gapMeV, ...COUPLING_NAMES.map(([key]) => row.second[key])]);
     const text = [
       `exchange ${info.name}: ${r.ion}, ${r.bond}, from ${r.cef}`,
       textTable(columns, rows),
       `ratios to J_zz: J_± ${ratio(r.ratios.JpmOverJzz)}, J_±± ${ratio(r.ratios.JpmpmOverJzz)}, J_z± ${ratio(r.ratios.JzpmOverJzz)}`,
       r.interpretation,
       r.twoSiteCheckMeV === null ? '' : `two-site check: max |exact − effective| = ${formatNumber(r.twoSiteCheckMeV, 3)} meV`,
+      ...scans.map(([label, rowsOf]) => `scan of ${label}:\n${textTable(scanColumns, scanRows(rowsOf), 12)}`),
     ]
       .filter((line) => line !== '')
       .join('\n');
@@ -281,18 +329,19 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       htmlTable('pseudospin couplings (convention: README, exchange)', columns, rows),
       htmlKeyValue('bond and checks', facts),
       r.furtherNeighbours ? htmlTable('further neighbours via a virtually excited middle ion (second order)', furtherColumns, furtherRows) : '',
+      ...scans.map(([label, rowsOf]) => htmlTable(`scan of ${label}`, scanColumns, scanRows(rowsOf))),
       '</div>',
     ].join('');
     const scanValues = (rowsOf: ExchangeScanRow[], x: (row: ExchangeScanRow) => number) =>
       rowsOf.flatMap((row) => COUPLING_NAMES.map(([key, label]) => ({ x: x(row), coupling: label, valueMeV: row.second[key], firstOrderMeV: row.first[key] })));
-    const plot = (values: Record<string, unknown>[], title: string, logX: boolean) => ({
+    const plot = (values: Record<string, unknown>[], title: string, xTitle: string, logX: boolean) => ({
       width: 360,
       height: 220,
       title,
       data: { values },
       mark: { type: 'line', point: true },
       encoding: {
-        x: { field: 'x', type: 'quantitative', title: title.startsWith('vs gap') ? 'gap to first excited CEF level (meV)' : 'exchange scale factor', scale: logX ? { type: 'log' } : {} },
+        x: { field: 'x', type: 'quantitative', title: xTitle, scale: logX ? { type: 'log' } : {} },
         y: { field: 'valueMeV', type: 'quantitative', title: 'coupling, 2nd order (meV)' },
         color: { field: 'coupling', type: 'nominal' },
         tooltip: [
@@ -304,8 +353,10 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       },
     });
     const panels: Record<string, unknown>[] = [];
-    if (r.scanCefScale) panels.push(plot(scanValues(r.scanCefScale, (row) => row.gapMeV), 'vs gap (CEF scaled)', true));
-    if (r.scanExchangeScale) panels.push(plot(scanValues(r.scanExchangeScale, (row) => row.value), 'vs exchange scale', false));
+    const gapTitle = 'gap to first excited CEF level (meV)';
+    if (r.scanCefScale) panels.push(plot(scanValues(r.scanCefScale, (row) => row.gapMeV), 'vs gap (CEF scaled)', gapTitle, true));
+    if (r.scanParameter) panels.push(plot(scanValues(r.scanParameter.rows, (row) => row.gapMeV), `vs gap (${r.scanParameter.key} moved)`, gapTitle, false));
+    if (r.scanExchangeScale) panels.push(plot(scanValues(r.scanExchangeScale, (row) => row.value), 'vs exchange scale', 'exchange scale factor', false));
     const schema = 'https://vega.github.io/schema/vega-lite/v5.json';
     const vegaLite =
       panels.length === 0
