@@ -52,3 +52,21 @@ describe('fitCef synthetic round trip on spectra (D3d, Er3+)', () => {
     if (process.env.MULTIPLET_VERBOSE) console.log(`coverage ${fraction} mean chi2red ${chi2RedSum / seeds}`);
   });
 });
+
+describe('fitCef with a fitted intrinsic line width', () => {
+  it('recovers a 0.6 meV Lorentzian width (pseudo-Voigt lines) and the parameters within their errors', () => {
+    const rng = createRandom(99);
+    const spectra: SpectrumObservation[] = [5, 60].map((T) => {
+      const model = neutronSpectrum('Er3+', TRUTH, { ...common, temperatureK: T, intrinsicFwhmMeV: 0.6 }).intensity;
+      const scaled = Array.from(model, (v) => 3 * v + 20);
+      const error = scaled.map((v) => 0.5 + 0.03 * v);
+      return { temperatureK: T, ...common, intensity: scaled.map((v, i) => v + error[i] * rng.normal()), error };
+    });
+    const report = fitCef({ ion: 'Er3+', symmetry: 'D3d', start: TRUTH, spectra, fitIntrinsicWidth: true });
+    const width = report.best.intrinsicWidth!;
+    expect(Math.abs(width.valueMeV - 0.6) / width.errorMeV).toBeLessThan(4);
+    expect(width.errorMeV).toBeLessThan(0.2);
+    for (const key of KEYS) expect(Math.abs(report.best.parametersMeV[key] - TRUTH[key]) / report.best.errorsMeV[key]).toBeLessThan(4);
+    expect(report.best.degreesOfFreedom).toBe(2 * 121 - 7 - 4);
+  });
+});

@@ -33,6 +33,8 @@ interface CefFitInput {
   bounds?: Record<string, number[]>;
   peaks?: PeakInput[];
   spectra?: SpectrumInput[];
+  fitWidth: boolean;
+  widthStart: number;
   starts: number;
   chi2Margin: number;
   errorScaling: 'data' | 'residual';
@@ -59,6 +61,7 @@ export interface CefFitCellResult {
     chi2ByDataset: { peaks: number; spectra: number[] };
     peaks: { fromLevel: number; toLevel: number; computedMeV: number; computedIntensity: number | null; unassigned: boolean; energyResidual: number }[];
     spectrumScales: number[][];
+    intrinsicWidth: { valueMeV: number; errorMeV: number } | null;
   };
   minima: SolutionJson[];
   startsRun: number;
@@ -148,6 +151,8 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
         },
       },
     },
+    fitWidth: { type: 'boolean', default: false, doc: 'Fit one intrinsic (Lorentzian) FWHM shared by all spectra (bounded to 0 … 20 meV).' },
+    widthStart: { type: 'quantity', unit: 'meV', min: 0, max: 20, default: '0.2 meV', doc: 'Starting intrinsic width when fitWidth is true.' },
     starts: { type: 'integer', min: 0, max: 10000, default: 0, doc: 'Random starts of the global search besides the start parameters (0: a local fit only).' },
     chi2Margin: { type: 'number', min: 0, default: 1, doc: 'Report minima with χ² ≤ χ²_best + max(margin, 0.2 χ²_best).' },
     errorScaling: { type: 'choice', values: ['data', 'residual'], default: 'data', doc: "Parameter errors from the data errors as given ('data') or inflated by χ²_red ('residual')." },
@@ -202,7 +207,10 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
       };
     });
     const bounds = input.bounds ? Object.fromEntries(Object.entries(input.bounds).map(([k, v]) => [k, [v[0]!, v[1]!] as [number, number]])) : undefined;
-    const spec: CefFitSpec = { ion: start.ion, symmetry: start.symmetry, start: start.parametersMeV, free: input.free, bounds, peaks, spectra };
+    const spec: CefFitSpec = {
+      ion: start.ion, symmetry: start.symmetry, start: start.parametersMeV, free: input.free, bounds, peaks, spectra,
+      fitIntrinsicWidth: input.fitWidth, intrinsicWidthStartMeV: input.widthStart,
+    };
     const report = fitCef(spec, { starts: input.starts, seed: ctx.seed, chi2Margin: input.chi2Margin, errorScaling: input.errorScaling, task: ctx.task });
     let posterior: CefFitCellResult['posterior'] = null;
     if (input.mcmcSteps > 0) {
@@ -233,6 +241,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
           energyResidual: best.peakEnergyResiduals[i]!,
         })),
         spectrumScales: best.spectrumScales.map((s) => [...s]),
+        intrinsicWidth: best.intrinsicWidth ? { ...best.intrinsicWidth } : null,
       },
       minima: report.minima.map(solutionJson),
       startsRun: report.startsRun,
@@ -256,6 +265,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
       ...b.chi2ByDataset.spectra.map((c, i): [string, string] => [`χ² (spectrum ${i})`, formatNumber(c)]),
       ['H_CEF evaluations', String(r.hamiltonianEvaluations)],
     ];
+    if (b.intrinsicWidth) entries.push(['intrinsic FWHM', `${formatNumber(b.intrinsicWidth.valueMeV, 4)} ± ${formatNumber(b.intrinsicWidth.errorMeV, 2)} meV`]);
     if (r.posterior)
       for (const [k, v] of Object.entries(r.posterior.derived)) entries.push([`posterior ${k}`, `${formatNumber(v.mean, 5)} ± ${formatNumber(v.standardDeviation, 2)}`]);
     const html = [

@@ -13,7 +13,8 @@
  *   spectra     [{temperatureK, energiesMeV, intensity, error, incidentEnergyMeV?, qInvAngstrom?, resolution?, lineShape?,
  *                 intrinsicFwhmMeV?, weight?}]
  *   susceptibility [{temperaturesK, chiEmuPerMol, errorEmuPerMol, direction? ('powder' | [x,y,z]), sites?, meanFieldMolPerEmu?,
- *                 fitScale?, weight?}]   magnetization [{temperatureK, fieldsT, momentMuB, errorMuB, direction?, …}] (joint fits)
+ *                 fitScale?, weight?}]   fitIntrinsicWidth (one Lorentzian FWHM for all spectra), intrinsicWidthStartMeV
+ *   magnetization [{temperatureK, fieldsT, momentMuB, errorMuB, direction?, …}] (joint fits)
  *   seed (default 0), starts (random starts besides `start`, default 0), chi2Margin (default 1),
  *   errorScaling ('data' default | 'residual'), mcmc {steps, walkers?, burnIn?, thin?, seed?} (optional)
  * Output: best {B (meV), errors (meV, 1σ), chi2, chi2Reduced, degreesOfFreedom, correlation, freeKeys, levelsMeV, peaks,
@@ -27,7 +28,7 @@ import { fitCef, type CefFitSolution, type CefFitSpec } from '@multiplet/physics
 import { sampleCefPosterior } from '@multiplet/physics/fit/sampleCefPosterior';
 import type { ComputeKind } from './index';
 
-const FIELDS = ['ion', 'symmetry', 'start', 'unit', 'free', 'bounds', 'peaks', 'spectra', 'susceptibility', 'magnetization', 'seed', 'starts', 'chi2Margin', 'errorScaling', 'mcmc'];
+const FIELDS = ['ion', 'symmetry', 'start', 'unit', 'free', 'bounds', 'peaks', 'spectra', 'susceptibility', 'magnetization', 'fitIntrinsicWidth', 'intrinsicWidthStartMeV', 'seed', 'starts', 'chi2Margin', 'errorScaling', 'mcmc'];
 
 function optionalInteger(input: Record<string, unknown>, key: string, min: number): number | undefined {
   const v = input[key];
@@ -88,6 +89,8 @@ export const cefFit: ComputeKind = {
       spectra: input.spectra as CefFitSpec['spectra'],
       susceptibility: input.susceptibility as CefFitSpec['susceptibility'],
       magnetization: input.magnetization as CefFitSpec['magnetization'],
+      fitIntrinsicWidth: input.fitIntrinsicWidth as boolean | undefined,
+      intrinsicWidthStartMeV: input.intrinsicWidthStartMeV as number | undefined,
     };
     const seed = optionalInteger(input, 'seed', 0) ?? 0;
     const report = fitCef(spec, {
@@ -136,6 +139,7 @@ export const cefFit: ComputeKind = {
         peakScales: best.peakScales,
         spectrumScales: best.spectrumScales,
         bulkScales: best.bulkScales,
+        intrinsicWidth: best.intrinsicWidth ?? null,
       },
       minima: report.minima.map(solutionJson),
       startsRun: report.startsRun,

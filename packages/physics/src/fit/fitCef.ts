@@ -72,6 +72,8 @@ export interface CefFitSolution {
   readonly spectrumScales: readonly (readonly [number, number])[];
   /** Level energies above the ground level, meV. */
   readonly levelsMeV: readonly number[];
+  /** The fitted shared intrinsic FWHM of the spectra ± 1σ, meV (when fitIntrinsicWidth). */
+  readonly intrinsicWidth?: { readonly valueMeV: number; readonly errorMeV: number };
   /** How many starts ended in this minimum. */
   readonly hits: number;
   readonly converged: boolean;
@@ -91,11 +93,11 @@ export interface CefFitReport {
 /** Least-squares view of the model: residuals, and a finite-difference Jacobian with the assignment frozen. */
 export function cefLeastSquaresProblem(model: CefFitModel): LeastSquaresProblem {
   return {
-    parameterCount: model.freeKeys.length,
+    parameterCount: model.parameterCount,
     residuals: (x) => model.residuals(x),
     jacobian: (x, r) =>
       model.withFrozenAssignment(x, () =>
-        finiteDifferenceJacobian((y) => model.residuals(y), x, r, { lower: model.lowerScaled, upper: model.upperScaled, typicalScale: model.freeKeys.map(() => 1) }),
+        finiteDifferenceJacobian((y) => model.residuals(y), x, r, { lower: model.lowerScaled, upper: model.upperScaled, typicalScale: Array.from({ length: model.parameterCount }, () => 1) }),
       ),
   };
 }
@@ -104,9 +106,11 @@ export function cefLeastSquaresProblem(model: CefFitModel): LeastSquaresProblem 
 export function describeCefSolution(model: CefFitModel, fit: LevenbergMarquardtResult, hits: number): CefFitSolution {
   const evaluation = model.evaluate(fit.parameters);
   const p = model.freeKeys.length;
+  const all = model.parameterCount;
   const errorsMeV: Record<string, number> = {};
   model.freeKeys.forEach((key, k) => (errorsMeV[key] = fit.standardErrors[k] / model.norms[k]));
-  const correlation = Array.from({ length: p }, (_, a) => Array.from({ length: p }, (_, b) => fit.correlation[a * p + b]));
+  const correlation = Array.from({ length: p }, (_, a) => Array.from({ length: p }, (_, b) => fit.correlation[a * all + b]));
+  const width = model.widthIndex >= 0 ? { valueMeV: fit.parameters[model.widthIndex], errorMeV: fit.standardErrors[model.widthIndex] } : undefined;
   const dof = model.degreesOfFreedom;
   return {
     parametersMeV: model.parametersMeV(fit.parameters),
@@ -128,6 +132,7 @@ export function describeCefSolution(model: CefFitModel, fit: LevenbergMarquardtR
     peakScales: evaluation.peakScales,
     spectrumScales: evaluation.spectrumScales,
     levelsMeV: Array.from(evaluation.levels.levelEnergiesMeV),
+    intrinsicWidth: width,
     hits,
     converged: fit.converged,
   };
@@ -154,7 +159,7 @@ export function fitCef(spec: CefFitSpec, options: FitCefOptions = {}): CefFitRep
   const minima = search.minima.map((m) => describeCefSolution(model, m.fit, m.hits));
   const warnings: string[] = [];
   if (model.degreesOfFreedom <= 0)
-    warnings.push(`more free parameters (${model.freeKeys.length} + ${model.profiledCount} scales) than data (${model.residualCount}): χ²_red is χ²`);
+    warnings.push(`more free parameters (${model.parameterCount} + ${model.profiledCount} scales) than data (${model.residualCount}): χ²_red is χ²`);
   if (minima[0].peakAssignments.some((a) => a.unassigned)) warnings.push('some peaks have no visible computed transition left to match');
   if (!minima[0].converged) warnings.push('the best local fit stopped before its convergence criteria were met');
   return {

@@ -38,7 +38,7 @@ export interface PosteriorSummary {
 }
 
 export interface CefPosterior {
-  /** Per free parameter, meV. */
+  /** Per free parameter (and 'intrinsicFwhmMeV' when the width is fitted), meV. */
   readonly parameters: Record<string, PosteriorSummary>;
   /** Correlation matrix of the free parameters over the samples (freeKeys order). */
   readonly correlation: number[][];
@@ -49,19 +49,22 @@ export interface CefPosterior {
   /** Integrated autocorrelation time per parameter, in steps; steps / τ ≫ 1 is needed for trustworthy summaries. */
   readonly autocorrelationSteps: Record<string, number>;
   readonly sampleCount: number;
-  /** Thinned samples of the free parameters in meV, row-major (sampleCount × freeKeys.length), for plots. */
+  /** Samples of the free parameters (then the width, if fitted) in meV, row-major (sampleCount × count), for plots. */
   readonly samplesMeV: Float64Array;
 }
 
 /** Sample the posterior of the free B_n^m of `spec` starting from a fitted `solution`. */
 export function sampleCefPosterior(spec: CefFitSpec, solution: CefFitSolution, options: SampleCefPosteriorOptions = {}): CefPosterior {
   const model = new CefFitModel(spec);
-  const p = model.freeKeys.length;
+  const p = model.parameterCount;
+  const nB = model.freeKeys.length;
   if (solution.freeKeys.join(',') !== model.freeKeys.join(','))
     throw new InputError('solution.freeKeys', solution.freeKeys, `the free parameters of the specification (${model.freeKeys.join(', ')})`);
-  const center = Float64Array.from(model.freeKeys, (key, k) => solution.parametersMeV[key] * model.norms[k]);
-  const spread = Float64Array.from(model.freeKeys, (key, k) => {
-    const error = solution.errorsMeV[key] * model.norms[k];
+  const center = Float64Array.from({ length: p }, (_, k) =>
+    k < nB ? solution.parametersMeV[model.freeKeys[k]] * model.norms[k] : (solution.intrinsicWidth?.valueMeV ?? model.startScaled[k]),
+  );
+  const spread = Float64Array.from({ length: p }, (_, k) => {
+    const error = k < nB ? solution.errorsMeV[model.freeKeys[k]] * model.norms[k] : (solution.intrinsicWidth?.errorMeV ?? Infinity);
     // A fraction of the LM error; an undetermined parameter starts from a small fraction of its box.
     return Number.isFinite(error) && error > 0 ? 0.1 * error : 1e-3 * (model.upperScaled[k] - model.lowerScaled[k]);
   });
@@ -96,13 +99,17 @@ export function sampleCefPosterior(spec: CefFitSpec, solution: CefFitSolution, o
     parameters[key] = { mean: run.mean[k] / model.norms[k], standardDeviation: run.standardDeviations[k] / model.norms[k] };
     autocorrelationSteps[key] = run.autocorrelationSteps[k];
   });
-  const correlation = Array.from({ length: p }, (_, a) =>
-    Array.from({ length: p }, (_, b) => (a === b ? 1 : run.covariance[a * p + b] / (run.standardDeviations[a] * run.standardDeviations[b] || 1))),
+  if (model.widthIndex >= 0) {
+    parameters.intrinsicFwhmMeV = { mean: run.mean[model.widthIndex], standardDeviation: run.standardDeviations[model.widthIndex] };
+    autocorrelationSteps.intrinsicFwhmMeV = run.autocorrelationSteps[model.widthIndex];
+  }
+  const correlation = Array.from({ length: nB }, (_, a) =>
+    Array.from({ length: nB }, (_, b) => (a === b ? 1 : run.covariance[a * p + b] / (run.standardDeviations[a] * run.standardDeviations[b] || 1))),
   );
   const derivedSummary: Record<string, PosteriorSummary> = {};
   derivedNames.forEach((name, q) => (derivedSummary[name] = { mean: run.derivedMean![q], standardDeviation: run.derivedStandardDeviation![q] }));
   const samplesMeV = new Float64Array(run.sampleCount * p);
-  for (let s = 0; s < run.sampleCount; s++) for (let k = 0; k < p; k++) samplesMeV[s * p + k] = run.samples[s * p + k] / model.norms[k];
+  for (let s = 0; s < run.sampleCount; s++) for (let k = 0; k < p; k++) samplesMeV[s * p + k] = run.samples[s * p + k] / (k < nB ? model.norms[k] : 1);
   return {
     parameters,
     correlation,

@@ -100,6 +100,12 @@ export interface CefFitSpec {
   readonly bounds?: Readonly<Record<string, readonly [number, number]>>;
   readonly peaks?: readonly PeakObservation[];
   readonly spectra?: readonly SpectrumObservation[];
+  /**
+   * Fit one intrinsic (Lorentzian) FWHM shared by all spectra, starting from `intrinsicWidthStartMeV`
+   * (default 0.2 meV), bounded to [0, 20] meV; it replaces the spectra's own intrinsicFwhmMeV.
+   */
+  readonly fitIntrinsicWidth?: boolean;
+  readonly intrinsicWidthStartMeV?: number;
   /** Bulk data for joint fits (thermo module: Van Vleck χ and M(B) from the same crystal field). */
   readonly susceptibility?: readonly SusceptibilityObservation[];
   readonly magnetization?: readonly MagnetizationObservation[];
@@ -162,6 +168,10 @@ export class CefFitModel {
   readonly fixed: Record<string, number>;
   /** ‖O_k‖ per free key. */
   readonly norms: Float64Array;
+  /** Index of the shared intrinsic width in the parameter vector (after the B's), or −1 when not fitted. */
+  readonly widthIndex: number;
+  /** Length of the parameter vector: free B's plus the width if fitted. */
+  readonly parameterCount: number;
   /** Scaled start, lower and upper bounds (finite: a user bound or the default search box). */
   readonly startScaled: Float64Array;
   readonly lowerScaled: Float64Array;
@@ -332,9 +342,21 @@ export class CefFitModel {
         const index = parseParameterKey(k);
         return index !== undefined && parameterKey(index.n, index.m) === key;
       })?.[1];
-    this.startScaled = new Float64Array(free.length);
-    this.lowerScaled = new Float64Array(free.length);
-    this.upperScaled = new Float64Array(free.length);
+    if (spec.fitIntrinsicWidth !== undefined && typeof spec.fitIntrinsicWidth !== 'boolean') throw new InputError('fitIntrinsicWidth', spec.fitIntrinsicWidth, 'true or false');
+    const fitWidth = spec.fitIntrinsicWidth === true;
+    if (fitWidth && this.spectra.length === 0) throw new InputError('fitIntrinsicWidth', true, 'spectra to fit a line width to');
+    const widthStart = spec.intrinsicWidthStartMeV ?? 0.2;
+    if (fitWidth) finiteNumber(widthStart, 'intrinsicWidthStartMeV', 'a width in [0, 20] meV', (v) => v >= 0 && v <= 20);
+    this.widthIndex = fitWidth ? free.length : -1;
+    this.parameterCount = free.length + (fitWidth ? 1 : 0);
+    this.startScaled = new Float64Array(this.parameterCount);
+    this.lowerScaled = new Float64Array(this.parameterCount);
+    this.upperScaled = new Float64Array(this.parameterCount);
+    if (fitWidth) {
+      this.startScaled[this.widthIndex] = widthStart;
+      this.lowerScaled[this.widthIndex] = 0;
+      this.upperScaled[this.widthIndex] = 20;
+    }
     free.forEach((key, k) => {
       const startMeV = start[key] ?? 0;
       const x = startMeV * this.norms[k];
@@ -362,7 +384,7 @@ export class CefFitModel {
 
   /** Degrees of freedom: residuals − free parameters − profiled scales/backgrounds. */
   get degreesOfFreedom(): number {
-    return this.residualCount - this.freeKeys.length - this.profiledCount;
+    return this.residualCount - this.parameterCount - this.profiledCount;
   }
 
   /** Residuals only (what the optimiser sees). */
@@ -521,7 +543,7 @@ export class CefFitModel {
         incidentEnergyMeV: s.incidentEnergyMeV,
         resolution: s.resolution,
         lineShape: s.lineShape,
-        intrinsicFwhmMeV: s.intrinsicFwhmMeV,
+        intrinsicFwhmMeV: this.widthIndex >= 0 ? x[this.widthIndex] : s.intrinsicFwhmMeV,
       };
       const model = spectrumFromTransitions(this.ion, thermalTransitions(levels, s.temperatureK), options).intensity;
       const weight = s.weight ?? 1;
