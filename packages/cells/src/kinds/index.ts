@@ -10,8 +10,13 @@ import { exchangeKind } from './exchange';
 import { neutronSpectrumKind } from './neutronSpectrum';
 import { cefFitKind } from './cefFit';
 import { pointChargeKind } from './pointCharge';
+import { magnetizationKind } from './magnetization';
+import { susceptibilityKind } from './susceptibility';
+import { heatCapacityKind } from './heatCapacity';
+import { heatCapacityReductionKind } from './heatCapacityReduction';
+import { curieWeissFitKind } from './curieWeissFit';
 
-const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind, exchangeKind, neutronSpectrumKind, cefFitKind, pointChargeKind];
+const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind, exchangeKind, neutronSpectrumKind, cefFitKind, pointChargeKind, magnetizationKind, susceptibilityKind, heatCapacityKind, heatCapacityReductionKind, curieWeissFitKind];
 
 const REGISTRY = new Map(KINDS.map((k) => [k.kind, k]));
 
