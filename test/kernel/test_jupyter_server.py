@@ -83,8 +83,11 @@ class JupyterServerTests(unittest.TestCase):
             self.assertEqual(replies["reply"]["content"]["status"], "ok")
             self.assertEqual(replies["stream"], "via server\n")
             self.assertEqual(replies["result"]["text/plain"], "42")
-            state = self.api("GET", f"/api/kernels/{kernel['id']}")["execution_state"]
-            self.assertEqual(state, "idle")
+            # The server follows the kernel's IOPub status on its own subscription, which can lag the websocket's.
+            deadline = time.monotonic() + 10
+            while self.api("GET", f"/api/kernels/{kernel['id']}")["execution_state"] != "idle" and time.monotonic() < deadline:
+                time.sleep(0.2)
+            self.assertEqual(self.api("GET", f"/api/kernels/{kernel['id']}")["execution_state"], "idle")
         finally:
             self.api("DELETE", f"/api/kernels/{kernel['id']}")
         self.assertEqual(self.api("GET", "/api/kernels"), [])
