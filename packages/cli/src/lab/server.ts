@@ -6,7 +6,7 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { copyFileSync, existsSync, mkdirSync, mkdtempSync, rmSync, statSync, readdirSync } from 'node:fs';
+import { copyFileSync, cpSync, existsSync, mkdirSync, mkdtempSync, rmSync, statSync, readdirSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { basename, join, resolve } from 'node:path';
@@ -19,7 +19,7 @@ export interface LabServerOptions {
   repoRoot: string;
   /** The bundled CLI the kernelspec runs (`node CLI kernel start …`). */
   cliPath: string;
-  /** Notebooks (files or directories of .ipynb) copied into the server's root directory. */
+  /** Notebooks (.ipynb files, or directories copied whole with their data) for the server's root directory. */
   notebooks: string[];
   port?: number;
   token?: string;
@@ -89,19 +89,14 @@ export async function startLabServer(options: LabServerOptions): Promise<LabServ
   const rootDir = join(workDir, 'notebooks');
   const jupyterPath = join(workDir, 'share/jupyter');
   for (const dir of [rootDir, jupyterPath, join(workDir, 'config'), join(workDir, 'runtime'), join(workDir, 'data')]) mkdirSync(dir, { recursive: true });
+  // A directory comes whole (data files in subdirectories, read by `data` cells, keep their relative paths).
+  for (const path of options.notebooks) {
+    if (existsSync(path) && statSync(path).isDirectory()) cpSync(path, rootDir, { recursive: true });
+  }
   const notebooks = collectNotebooks(options.notebooks).map((path) => {
     copyFileSync(path, join(rootDir, basename(path)));
     return basename(path);
   });
-  // Data files beside the notebooks (CSV read by `data` cells) come along.
-  for (const path of options.notebooks) {
-    if (existsSync(path) && statSync(path).isDirectory()) {
-      for (const entry of readdirSync(path)) {
-        const source = join(path, entry);
-        if (!entry.endsWith('.ipynb') && statSync(source).isFile()) copyFileSync(source, join(rootDir, entry));
-      }
-    }
-  }
   installKernelSpec(buildKernelSpec(process.execPath, options.cliPath, KERNEL_IDENTITY.implementationVersion), { kind: 'prefix', prefix: workDir });
 
   const port = options.port ?? (await freePort());
