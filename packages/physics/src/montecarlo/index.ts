@@ -16,3 +16,5 @@ export * from './summarizeSpinIceRun';
 export * from './runSpinIceMonteCarlo';
 export * from './multiHistogramReweighting';
 export * from './reweightedHeatCapacity';
+export * from './spinIceRunData';
+export * from './runSpinIceMonteCarloAsync';

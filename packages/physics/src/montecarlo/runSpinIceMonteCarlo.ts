@@ -23,7 +23,7 @@ export function runSpinIceMonteCarlo(options: SpinIceRunOptions, task: LongTask 
   const therm = sim.totalSteps - options.sweeps;
   while (sim.stepsDone < sim.totalSteps) {
     task.checkpoint();
-    sim.step();
+    sim.step(() => task.checkpoint());
     task.report(sim.stepsDone, sim.totalSteps, sim.stepsDone <= therm ? 'thermalize' : 'measure');
   }
   const raw = sim.raw();

@@ -63,8 +63,9 @@ export interface SpinIceRawResult {
 export interface SpinIceSimulation {
   readonly totalSteps: number;
   readonly stepsDone: number;
-  /** One Monte Carlo step for all replicas (+ swaps, + measurement after thermalization). */
-  step(): void;
+  /** One Monte Carlo step for all replicas (+ swaps, + measurement after thermalization); `checkpoint` is called
+   * before each replica so that a cancellation lands within one replica sweep. */
+  step(checkpoint?: () => void): void;
   /** The series recorded so far. */
   raw(): SpinIceRawResult;
 }
@@ -106,11 +107,25 @@ export function createSpinIceSimulation(options: SpinIceRunOptions): SpinIceSimu
   for (let k = 0; k < nT; k++) replicas.push(createReplica(c, rng.fork(), options.initialSpins));
   const replicaAtSlot = Int32Array.from({ length: nT }, (_, k) => k);
   const M = options.sweeps;
+  // Series grow by doubling, so that a long run that is cancelled early never allocated its full length.
+  let capacity = Math.min(M, 1024);
   const series: SpinIceSeries = {
-    energyK: temps.map(() => new Float64Array(M)),
-    projection: temps.map(() => new Float64Array(M)),
-    shellSums: Object.fromEntries(SHELLS.map((s) => [s, temps.map(() => new Float64Array(M))])) as Record<ShellName, Float64Array[]>,
-    orderParameter: temps.map(() => new Float64Array(M)),
+    energyK: temps.map(() => new Float64Array(capacity)),
+    projection: temps.map(() => new Float64Array(capacity)),
+    shellSums: Object.fromEntries(SHELLS.map((s) => [s, temps.map(() => new Float64Array(recordShells ? capacity : 0))])) as Record<ShellName, Float64Array[]>,
+    orderParameter: temps.map(() => new Float64Array(capacity)),
+  };
+  const grow = () => {
+    capacity = Math.min(M, capacity * 2);
+    const g = (arr: Float64Array[]) => arr.map((a) => {
+      const b = new Float64Array(capacity);
+      b.set(a);
+      return b;
+    });
+    series.energyK = g(series.energyK);
+    series.projection = g(series.projection);
+    series.orderParameter = g(series.orderParameter);
+    if (recordShells) for (const s of SHELLS) series.shellSums[s] = g(series.shellSums[s]);
   };
   const snapshots: Int8Array[][] = temps.map(() => []);
   const flipAcc = new Float64Array(nT);
@@ -133,9 +148,10 @@ export function createSpinIceSimulation(options: SpinIceRunOptions): SpinIceSimu
   let measured = 0;
   const total = therm + M;
 
-  const step = () => {
+  const step = (checkpoint?: () => void) => {
     if (done >= total) return;
     for (let k = 0; k < nT; k++) {
+      checkpoint?.();
       const r = replicas[replicaAtSlot[k]];
       const beta = slotBeta[k];
       const user = slotTemp[k].k;
@@ -161,6 +177,7 @@ export function createSpinIceSimulation(options: SpinIceRunOptions): SpinIceSimu
     done++;
     if (done % 256 === 0) for (const r of replicas) refreshReplica(c, r);
     if (done > therm) {
+      if (measured >= capacity) grow();
       for (let k = 0; k < nT; k++) {
         const r = replicas[replicaAtSlot[k]];
         const user = slotTemp[k].k;
@@ -194,7 +211,7 @@ export function createSpinIceSimulation(options: SpinIceRunOptions): SpinIceSimu
     },
     step,
     raw() {
-      const cut = (arr: Float64Array[]) => arr.map((a) => a.slice(0, measured));
+      const cut = (arr: Float64Array[]) => arr.map((a) => (a.length >= measured ? a.slice(0, measured) : new Float64Array(measured)));
       return {
         couplings: c,
         temperaturesK: [...temps],
