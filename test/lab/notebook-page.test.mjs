@@ -141,7 +141,7 @@ test('moving B20 with the keyboard reruns the cell and its dependant, redrawing 
   await shot('03-control-moved');
 });
 
-test('rerunning the sample marks the crystal field stale in the panel; Rerun stale clears it', async () => {
+test('rerunning the sample marks the crystal field and spectrum stale (panel and outputs); Rerun stale clears it', async () => {
   await page.waitForSelector(`${stateResult('cefA')}[data-stale="false"]`);
   // Run the sample cell again from its editor (Shift+Enter).
   await page.click('.jp-Notebook .jp-Cell:nth-child(2) .cm-content');
@@ -149,11 +149,16 @@ test('rerunning the sample marks the crystal field stale in the panel; Rerun sta
   await page.waitForSelector(`${stateResult('cefA')}[data-stale="true"]`, { timeout: 60_000 });
   assert.match(await page.textContent(stateResult('cefA')), /stale/);
   await page.waitForSelector(`${stateResult('spectrumA')}[data-stale="true"]`);
+  // The outputs themselves say so (the kernel refreshes their displays with the stale flag).
+  await page.waitForSelector(`${cefOutput}.jp-mod-stale .jp-Multiplet-staleMark`);
+  await page.waitForSelector(`${spectrumOutput}.jp-mod-stale`);
   await shot('04-stale');
   await page.click('.jp-Multiplet-stateButton >> text=Rerun stale');
   await page.waitForSelector(`${stateResult('cefA')}[data-stale="false"]`, { timeout: 60_000 });
   await page.waitForSelector(`${stateResult('spectrumA')}[data-stale="false"]`);
   assert.equal(await page.locator('.jp-Multiplet-statePanel .jp-Multiplet-staleMark').count(), 0);
+  await page.waitForSelector(`${cefOutput}:not(.jp-mod-stale)`);
+  await page.waitForSelector(`${spectrumOutput}:not(.jp-mod-stale)`);
   assert.equal(await page.locator(errorOutputs).count(), 0);
   await shot('05-stale-cleared');
 });
