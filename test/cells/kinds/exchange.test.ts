@@ -88,5 +88,11 @@ describe('[exchange] cell', () => {
     expect(e2.evalue).toMatch(/thetaCW/);
     const e3 = errorOf(await run(session, `[exchange] exPr\ncef: cefPr\nisotropic: 0.01 meV\nscanValues: [0.1 meV]\n`));
     expect(e3.evalue).toMatch(/scanParameter/);
+    await runOk(session, `[crystal-field] cefPrDoublet\nB:\n  B20: -0.5 meV\n  B43: 0.08 meV\n`);
+    const e4 = errorOf(await run(session, `[exchange] exPr\ncef: cefPrDoublet\nmatrix: [[1 meV, 0 meV], [0 meV, 1 meV]]\n`));
+    expect(e4.evalue).toMatch(/line 3/);
+    expect(e4.evalue).toMatch(/matrix/);
+    const e5 = errorOf(await run(session, `[exchange] exPr\ncef: cefPrDoublet\nisotropic: 0.01 meV\nlatticeConstant: 0 angstrom\n`));
+    expect(e5.evalue).toMatch(/latticeConstant/);
   });
 });
