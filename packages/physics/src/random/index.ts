@@ -34,25 +34,28 @@ function splitmix32(seed: number): () => number {
  * @example const rng = createRandom(42); rng.normal();
  */
 export function createRandom(seed: number | [number, number, number, number]): Random {
-  let s0: number, s1: number, s2: number, s3: number;
+  // The state lives in a Uint32Array: closure variables holding values ≥ 2³¹ would be boxed on every update,
+  // which made each draw allocate (about 5× slower in the Monte Carlo inner loops). Same stream as before.
+  const st = new Uint32Array(4);
   if (Array.isArray(seed)) {
-    [s0, s1, s2, s3] = seed.map((x) => x >>> 0) as [number, number, number, number];
+    for (let k = 0; k < 4; k++) st[k] = seed[k] >>> 0;
   } else {
     const sm = splitmix32(Math.floor(seed) ^ Math.floor(seed / 4294967296));
-    s0 = sm(); s1 = sm(); s2 = sm(); s3 = sm();
+    st[0] = sm(); st[1] = sm(); st[2] = sm(); st[3] = sm();
   }
-  if ((s0 | s1 | s2 | s3) === 0) s0 = 1;
+  if ((st[0] | st[1] | st[2] | st[3]) === 0) st[0] = 1;
   let spare: number | undefined;
 
   const nextU32 = (): number => {
+    const s1 = st[1];
     const result = Math.imul(rotl(Math.imul(s1, 5) >>> 0, 7), 9) >>> 0;
-    const t = (s1 << 9) >>> 0;
-    s2 = (s2 ^ s0) >>> 0;
-    s3 = (s3 ^ s1) >>> 0;
-    s1 = (s1 ^ s2) >>> 0;
-    s0 = (s0 ^ s3) >>> 0;
-    s2 = (s2 ^ t) >>> 0;
-    s3 = rotl(s3, 11);
+    const t = s1 << 9;
+    st[2] ^= st[0];
+    st[3] ^= s1;
+    st[1] ^= st[2];
+    st[0] ^= st[3];
+    st[2] ^= t;
+    st[3] = rotl(st[3], 11);
     return result;
   };
 
@@ -77,7 +80,7 @@ export function createRandom(seed: number | [number, number, number, number]): R
       return u * m;
     },
     fork: () => createRandom([nextU32(), nextU32(), nextU32(), nextU32()]),
-    state: () => [s0, s1, s2, s3],
+    state: () => [st[0], st[1], st[2], st[3]],
   };
   return rng;
 }
