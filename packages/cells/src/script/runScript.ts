@@ -70,8 +70,10 @@ export function compileScript(source: string): Compiled {
   }
   const last = program.body[program.body.length - 1];
   if (last && last.type === 'ExpressionStatement' && last.expression) {
-    const e = last.expression;
-    js = `${js.slice(0, e.start)}return (${js.slice(e.start, e.end)});${js.slice(last.end)}`;
+    // From the statement's start (not the expression's): a parenthesised last expression, `({ a: 1 })`, starts
+    // before its expression node.
+    const body = js.slice(last.start, last.end).replace(/;\s*$/, '');
+    js = `${js.slice(0, last.start)}return (${body});${js.slice(last.end)}`;
   }
   let lines: ([number, number] | undefined)[] = [];
   try {
