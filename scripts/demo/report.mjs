@@ -5,11 +5,23 @@
 // Usage: node scripts/demo/report.mjs OUT.html TITLE NOTEBOOK.ipynb... [--summary SUMMARY.html]
 import { readFileSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { basename } from 'node:path';
+import { basename, dirname, join } from 'node:path';
+import { existsSync } from 'node:fs';
 import { marked } from 'marked';
 
 const require = createRequire(import.meta.url);
 const VEGA_LITE_MIME = 'application/vnd.vegalite.v5+json';
+
+/** The installed package's directory: the nearest node_modules/<name> above the resolved entry point. */
+function packageDir(name) {
+  let dir = dirname(require.resolve(name));
+  while (!dir.endsWith(join('node_modules', name)) || !existsSync(join(dir, 'package.json'))) {
+    const up = dirname(dir);
+    if (up === dir) throw new Error(`report: cannot find the package directory of ${name}`);
+    dir = up;
+  }
+  return dir;
+}
 
 const escapeHtml = (s) => String(s).replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]);
 const joinSource = (src) => (Array.isArray(src) ? src.join('') : String(src ?? ''));
@@ -50,7 +62,8 @@ export function buildReport({ title, notebooks, summaryHtml = '' }) {
   const plots = [];
   const sections = notebooks.map((p, i) => renderNotebook(p, i, plots));
   const nav = notebooks.map((p, i) => `<li><a href="#nb-${i}">${escapeHtml(basename(p, '.ipynb'))}</a></li>`).join('');
-  const script = (name, file) => readFileSync(require.resolve(`${name}/build/${file}`), 'utf8').replace(/<\/script/gi, '<\\/script');
+  // The packages' build files are read from node_modules directly: vega-embed's "exports" map does not expose them.
+  const script = (name, file) => readFileSync(join(packageDir(name), 'build', file), 'utf8').replace(/<\/script/gi, '<\\/script');
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><title>${escapeHtml(title)}</title>
 <style>
