@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { fitCef, type PeakObservation } from '@multiplet/physics/fit/fitCef';
 import { cefTransitions } from '@multiplet/physics/neutron/cefTransitions';
-import { InputError } from '@multiplet/physics/errors';
+import { CancelledError, InputError } from '@multiplet/physics/errors';
+import { createTask } from '@multiplet/physics/progress';
 
 // A D3d (z ∥ 3-fold) crystal field for Er3+; values chosen for the tests (levels 0, 3.7, 12.8, 25.7, … meV at these B).
 const TRUTH = { B20: -0.04, B40: 1.2e-3, B43: -1.1e-2, B60: 8e-6, B63: -7e-5, B66: 9e-5 };
@@ -50,6 +51,19 @@ describe('fitCef on peak lists', () => {
     expect(report.best.peakAssignments[first]).toMatchObject({ fromLevel: 0, toLevel: 1 });
     expect(report.best.chi2).toBeLessThan(1e-8);
     expect(Object.keys(report.best.errorsMeV)).toEqual(['B20', 'B40', 'B43', 'B60', 'B63']);
+  });
+
+  it('reports peaks left without a visible transition instead of failing, and honours cancellation', () => {
+    // Ce3+ (J = 5/2) has three doublets: at most two energy-loss lines from the ground level at 2 K.
+    const peaks = [4, 9, 15].map((e) => ({ energyMeV: e, errorMeV: 0.2, temperatureK: 2 }));
+    const report = fitCef({ ion: 'Ce3+', symmetry: 'D3d', start: { B20: -0.5, B40: 0.01, B43: 0.1 }, peaks });
+    expect(report.best.peakAssignments.filter((a) => a.unassigned)).toHaveLength(1);
+    expect(report.warnings.join(' ')).toMatch(/no visible computed transition/);
+    expect(Number.isFinite(report.best.chi2)).toBe(true);
+    const task = createTask();
+    let reports = 0;
+    const cancelling = { report: () => (++reports === 3 ? task.cancel() : undefined), checkpoint: () => task.checkpoint(), cancelled: false };
+    expect(() => fitCef({ ion: 'Er3+', symmetry: 'D3d', start: START, peaks: syntheticPeaks() }, { starts: 8, seed: 1, task: cancelling })).toThrow(CancelledError);
   });
 
   it('gives clear InputErrors for bad input', () => {

@@ -94,7 +94,7 @@ export interface CefFitSpec {
   readonly symmetry: string;
   /** Starting (and fixed) parameters, meV. */
   readonly start: Readonly<Record<string, number>>;
-  /** Keys varied by the fit (default: every parameter the symmetry allows). */
+  /** Keys varied by the fit (default: every parameter the symmetry allows with rank n ≤ 2J). */
   readonly free?: readonly string[];
   /** Bounds per free key, [lower, upper] meV. */
   readonly bounds?: Readonly<Record<string, readonly [number, number]>>;
@@ -195,7 +195,9 @@ export class CefFitModel {
     const allowed = allowedParameters(spec.symmetry);
     this.symmetry = spec.symmetry;
     const start = normalizeCefParameters((spec.start ?? {}) as Record<string, unknown>, { symmetry: spec.symmetry, field: 'start' });
-    const free = (spec.free ?? allowed).map((key, k) => {
+    // Default: every parameter the symmetry allows that acts on this J (rank n ≤ 2J).
+    const defaultFree = allowed.filter((key) => parseParameterKey(key)!.n <= 2 * this.ion.J);
+    const free = (spec.free ?? defaultFree).map((key, k) => {
       const index = typeof key === 'string' ? parseParameterKey(key) : undefined;
       if (!index) throw new InputError(`free[${k}]`, key, 'a Stevens parameter name such as B20 or B43');
       const canonical = parameterKey(index.n, index.m);
