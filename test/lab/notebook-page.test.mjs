@@ -1,5 +1,5 @@
 // The standalone notebook page in headless chromium, on the real Multiplet kernel: run a notebook, see the result
-// views (level diagram, the neutron spectrum that depends on it), move a B_n^m control, watch the sample-state panel mark and clear stale results, insert
+// views (level diagram; the neutron spectrum and powder magnetization that depend on it), move a B_n^m control, watch the sample-state panel mark and clear stale results, insert
 // a template from the command palette, run it, break it, and read the precise error. Screenshots of each step go
 // to test-artifacts/lab/; the one with the interactive crystal-field cell is copied to docs/screenshot-lab.png.
 import assert from 'node:assert/strict';
@@ -18,6 +18,7 @@ let page;
 
 const cefOutput = '.jp-Multiplet-result[data-kind="crystal-field"][data-result-name="cefA"]';
 const spectrumOutput = '.jp-Multiplet-result[data-kind="neutron-spectrum"][data-result-name="spectrumA"]';
+const magnetOutput = '.jp-Multiplet-result[data-kind="magnetization"][data-result-name="magnetA"]';
 const stateResult = (name) => `.jp-Multiplet-statePanel li.jp-Multiplet-stateResult[data-name="${name}"]`;
 const errorOutputs = '.jp-OutputArea-output[data-mime-type="application/vnd.jupyter.stderr"], .jp-RenderedText[data-mime-type="application/vnd.jupyter.stderr"]';
 
@@ -73,7 +74,7 @@ test('the page loads the prebuilt extension through module federation', async ()
   await shot('01-opened');
 });
 
-test('run all cells: no error output, result views and the level diagram rendered', async () => {
+test('run all cells: no error output; level diagram, spectrum and magnetization plots rendered', async () => {
   await page.click('.jp-Toolbar-item >> text=Run All Cells');
   await page.waitForSelector(`${cefOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg`, { timeout: 120_000 });
   assert.equal(await page.locator(errorOutputs).count(), 0, 'no error outputs');
@@ -85,6 +86,11 @@ test('run all cells: no error output, result views and the level diagram rendere
   await page.waitForSelector(`${spectrumOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg`, { timeout: 60_000 });
   const spectrum = await plotMarks(spectrumOutput);
   assert.ok(spectrum.some((d) => d.length > 100), 'the spectrum line has a path');
+  // The powder magnetization M(B) from cefA: one curve per temperature.
+  await page.waitForSelector(`${magnetOutput} figure.jp-Multiplet-plot[data-rendered="true"] svg`, { timeout: 60_000 });
+  const curves = (await plotMarks(magnetOutput)).filter((d) => d.length > 50);
+  assert.ok(curves.length >= 1, `M(B) curves: ${curves.length}`);
+  assert.equal(await page.locator(errorOutputs).count(), 0, 'no error outputs');
   // Tables with units in the headers.
   const headers = await page.$$eval(`${cefOutput} table.jp-Multiplet-table th`, (cells) => cells.map((c) => c.textContent));
   assert.ok(headers.includes('E (meV)'), `table headers: ${headers.join(' | ')}`);
@@ -102,9 +108,10 @@ test('run all cells: no error output, result views and the level diagram rendere
   copyFileSync(path, join(repoRoot, 'docs/screenshot-lab.png'));
 });
 
-test('moving B20 with the keyboard reruns the cell and its dependant, redrawing both plots in place', async () => {
+test('moving B20 with the keyboard reruns the cell and its dependants, redrawing the level diagram, spectrum and M(B) in place', async () => {
   const before = await levelMarks();
   const spectrumBefore = await plotMarks(spectrumOutput);
+  const magnetBefore = await plotMarks(magnetOutput);
   const summaryBefore = await page.textContent(`${cefOutput} .jp-Multiplet-summary`);
   const slider = page.getByLabel('B20 (meV)', { exact: true });
   await slider.focus();
@@ -126,6 +133,14 @@ test('moving B20 with the keyboard reruns the cell and its dependant, redrawing 
     { timeout: 60_000 },
   );
   assert.notDeepEqual(await plotMarks(spectrumOutput), spectrumBefore, 'the dependent spectrum changed');
+  await page.waitForFunction(
+    ([selector, old]) => {
+      const marks = Array.from(document.querySelectorAll(`${selector} figure.jp-Multiplet-plot[data-rendered="true"] svg .role-mark path`));
+      return marks.length > 0 && JSON.stringify(marks.map((m) => m.getAttribute('d'))) !== old;
+    },
+    [magnetOutput, JSON.stringify(magnetBefore.map((d) => d.split(' ')[1]))],
+    { timeout: 60_000 },
+  );
   // Same output, updated in place (update_display_data): still one crystal-field view, focus kept on the slider.
   assert.equal(await page.locator(cefOutput).count(), 1);
   assert.equal(await page.evaluate(() => document.activeElement?.getAttribute('aria-valuetext') !== null), true);
