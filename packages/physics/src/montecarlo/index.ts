@@ -18,3 +18,4 @@ export * from './multiHistogramReweighting';
 export * from './reweightedHeatCapacity';
 export * from './spinIceRunData';
 export * from './runSpinIceMonteCarloAsync';
+export * from './fitHeatCapacity';

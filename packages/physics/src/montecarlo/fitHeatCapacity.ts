@@ -1,0 +1,187 @@
+/**
+ * Fit exchange constants (and optionally the dipolar strength D) of the spin-ice model to a measured magnetic heat
+ * capacity, with the Monte Carlo as the model. Each outer iteration runs one parallel-tempering simulation at the
+ * current parameters, recording the energy split into its parts (shell sums Σ ẑ_i·ẑ_j σ_i σ_j, dipolar and Zeeman
+ * energy); Levenberg–Marquardt then moves the parameters with C(T) predicted by multiple-histogram reweighting in
+ * both temperature and couplings (Ferrenberg & Swendsen, PRL 63, 1195 (1989)):
+ *   E'_n = Σ_s J'_s e_{s,n} + (D'/D) E_dip,n + (D'/D)^{1/2} E_Z,n,  C'(T) = (⟨E'²⟩' − ⟨E'⟩'²)/(N k_B T²),
+ * inside a trust box around the simulated point (reweighting is only accurate nearby). The next iteration
+ * re-simulates at the new point; the fit stops when a step stays inside the box and changes χ² by < 1 %.
+ * χ² uses the data errors only; the quoted parameter errors come from the final Jacobian (Monte Carlo noise of the
+ * model is not included, so use enough sweeps that the model error is below the data error).
+ */
+import { runSpinIceMonteCarlo } from './runSpinIceMonteCarlo';
+import { multiHistogramReweighting } from './multiHistogramReweighting';
+import { BOHR_MAGNETON_K_PER_T, type SpinIceModel } from './spinIceCouplings';
+import type { ShellName } from '../lattice/neighbourShells';
+import { levenbergMarquardt } from '../fit/levenbergMarquardt';
+import { GAS_CONSTANT_J_PER_MOL_K } from '../units';
+import { InputError } from '../errors';
+import { NO_TASK, type LongTask } from '../progress';
+
+/** A fitted parameter: an exchange shell or the dipolar strength. */
+export type FitParameter = ShellName | 'D';
+
+/** Options of the fit. */
+export interface HeatCapacityFitOptions {
+  /** The model at the starting point (its exchangeK are the initial values; D from the moment if dipolar). */
+  model: SpinIceModel;
+  data: { temperaturesK: readonly number[]; heatCapacityJPerMolK: readonly number[]; errorJPerMolK: readonly number[] };
+  parameters: readonly FitParameter[];
+  /** Simulated temperatures; default 16 geometric points from 0.8 × to 1.25 × the data range. */
+  simulationTemperaturesK?: readonly number[];
+  sweeps: number;
+  seed: number;
+  /** Outer iterations (simulations); default 4. */
+  maxSimulations?: number;
+  /** Half-width of the trust box per iteration in K; default max(0.3 K, 30 % of |value|). */
+  trustK?: number;
+  loopMovesPerSweep?: number;
+}
+
+/** Result of the fit. */
+export interface HeatCapacityFitResult {
+  parametersK: Partial<Record<FitParameter, number>>;
+  uncertaintiesK: Partial<Record<FitParameter, number>>;
+  chiSquare: number;
+  reducedChiSquare: number;
+  degreesOfFreedom: number;
+  /** Model C(T) at the data temperatures (reweighted from the last simulation). */
+  modelHeatCapacityJPerMolK: number[];
+  /** Parameters and χ² of each simulation. */
+  history: { parametersK: Partial<Record<FitParameter, number>>; chiSquare: number }[];
+  converged: boolean;
+  /** The final model (exchangeK and moment updated). */
+  model: SpinIceModel;
+}
+
+const SHELLS: ShellName[] = ['J1', 'J2', 'J3a', 'J3b'];
+
+/**
+ * Fit the chosen parameters to C(T) data (K, J/(mol K) per mole of spins, errors > 0).
+ * @example fitHeatCapacity({ model, data, parameters: ['J2', 'J3a'], sweeps: 2000, seed: 1 }).parametersK
+ * See also: multiHistogramReweighting, runSpinIceMonteCarlo
+ */
+export function fitHeatCapacity(options: HeatCapacityFitOptions, task: LongTask = NO_TASK): HeatCapacityFitResult {
+  const { data } = options;
+  const nd = data.temperaturesK.length;
+  if (nd < 2) throw new InputError('data.temperaturesK', data.temperaturesK, 'at least two temperatures');
+  if (data.heatCapacityJPerMolK.length !== nd) throw new InputError('data.heatCapacityJPerMolK', data.heatCapacityJPerMolK.length, `${nd} values`);
+  if (data.errorJPerMolK.length !== nd) throw new InputError('data.errorJPerMolK', data.errorJPerMolK.length, `${nd} values`);
+  data.temperaturesK.forEach((t, k) => {
+    if (!(t > 0)) throw new InputError(`data.temperaturesK[${k}]`, t, 'a positive temperature in K');
+  });
+  data.errorJPerMolK.forEach((e, k) => {
+    if (!(e > 0)) throw new InputError(`data.errorJPerMolK[${k}]`, e, 'a positive uncertainty');
+  });
+  const params = options.parameters;
+  if (params.length === 0) throw new InputError('parameters', params, 'at least one of J1, J2, J3a, J3b, D');
+  for (const p of params) if (p !== 'D' && !SHELLS.includes(p as ShellName)) throw new InputError('parameters', p, 'J1, J2, J3a, J3b or D');
+  if (params.includes('D') && !options.model.dipolar) throw new InputError('parameters', 'D', 'a model with the dipolar interaction on');
+  if (nd <= params.length) throw new InputError('data.temperaturesK', nd, `more data points than parameters (${params.length})`);
+  const tMin = Math.min(...data.temperaturesK), tMax = Math.max(...data.temperaturesK);
+  const simT = options.simulationTemperaturesK ?? Array.from({ length: 16 }, (_, k) => 0.8 * tMin * Math.pow((1.25 * tMax) / (0.8 * tMin), k / 15));
+  const maxSim = options.maxSimulations ?? 4;
+  let model: SpinIceModel = { ...options.model, exchangeK: { ...(options.model.exchangeK ?? {}) } };
+  const history: HeatCapacityFitResult['history'] = [];
+  let converged = false;
+  let last: { values: Float64Array; chi2: number; dof: number; errors: Float64Array; modelC: number[] } | undefined;
+  for (let it = 0; it < maxSim; it++) {
+    task.report(it, maxSim, 'simulate');
+    const run = runSpinIceMonteCarlo(
+      { model, temperaturesK: simT, sweeps: options.sweeps, seed: options.seed + 7919 * it, recordShellSums: true, loopMovesPerSweep: options.loopMovesPerSweep },
+      task,
+    );
+    const raw = run.raw;
+    const c = raw.couplings;
+    const N = c.numberOfSites;
+    const mh = multiHistogramReweighting(raw.series.energyK, raw.temperaturesK);
+    const E = mh.energiesK;
+    const e = Object.fromEntries(SHELLS.map((s) => [s, mh.pool(raw.series.shellSums[s])])) as Record<ShellName, Float64Array>;
+    const proj = mh.pool(raw.series.projection);
+    const B = model.fieldTesla ?? [0, 0, 0];
+    const zeemanScale = -model.momentMuB * BOHR_MAGNETON_K_PER_T * Math.hypot(B[0], B[1], B[2]);
+    const ex0 = model.exchangeK ?? {};
+    const D0 = c.dipolarDK;
+    const eZ = new Float64Array(E.length);
+    const eDip = new Float64Array(E.length);
+    for (let n = 0; n < E.length; n++) {
+      eZ[n] = zeemanScale * proj[n];
+      let ex = 0;
+      for (const s of SHELLS) ex += (ex0[s] ?? 0) * e[s][n];
+      eDip[n] = E[n] - c.constantK - ex - eZ[n];
+    }
+    const start = Float64Array.from(params.map((p) => (p === 'D' ? D0 : ex0[p] ?? 0)));
+    const trust = params.map((_, k) => options.trustK ?? Math.max(0.3, 0.3 * Math.abs(start[k])));
+    const Ep = new Float64Array(E.length);
+    const e1 = new Float64Array(E.length);
+    const e2 = new Float64Array(E.length);
+    const predict = (p: Float64Array): number[] => {
+      const J: Record<string, number> = { ...ex0 } as Record<string, number>;
+      let Dr = 1;
+      params.forEach((name, k) => {
+        if (name === 'D') Dr = p[k] / D0;
+        else J[name] = p[k];
+      });
+      const zr = Math.sqrt(Math.max(Dr, 0));
+      let mean = 0;
+      for (let n = 0; n < E.length; n++) {
+        let v = (D0 > 0 ? Dr : 1) * eDip[n] + zr * eZ[n];
+        for (const s of SHELLS) v += (J[s] ?? 0) * e[s][n];
+        Ep[n] = v;
+        mean += v / E.length;
+      }
+      for (let n = 0; n < E.length; n++) {
+        e1[n] = Ep[n] - mean;
+        e2[n] = e1[n] * e1[n];
+      }
+      return data.temperaturesK.map((T) => {
+        const [a1, a2] = mh.average(T, [e1, e2], Ep);
+        return ((a2 - a1 * a1) / (T * T * N)) * GAS_CONSTANT_J_PER_MOL_K;
+      });
+    };
+    const residuals = (p: Float64Array) => {
+      const m = predict(p);
+      return Float64Array.from(m, (v, k) => (v - data.heatCapacityJPerMolK[k]) / data.errorJPerMolK[k]);
+    };
+    const chiAt = (p: Float64Array) => residuals(p).reduce((s, r) => s + r * r, 0);
+    const chiStart = chiAt(start);
+    history.push({ parametersK: Object.fromEntries(params.map((p, k) => [p, start[k]])), chiSquare: chiStart });
+    const lower = start.map((v, k) => v - trust[k]);
+    const upper = start.map((v, k) => v + trust[k]);
+    if (params.includes('D')) {
+      const k = params.indexOf('D');
+      lower[k] = Math.max(lower[k], 1e-6);
+    }
+    const fit = levenbergMarquardt({ parameterCount: params.length, residuals }, start, {
+      lower, upper, maxIterations: 60, errorScaling: 'data', typicalScale: trust,
+    });
+    const atBound = Array.from(fit.parameters).some((v, k) => Math.abs(v - lower[k]) < 1e-9 * (1 + Math.abs(v)) || Math.abs(v - upper[k]) < 1e-9 * (1 + Math.abs(v)));
+    last = { values: fit.parameters, chi2: fit.chi2, dof: nd - params.length, errors: fit.standardErrors, modelC: predict(fit.parameters) };
+    // Move the model to the new point.
+    const exNew = { ...ex0 };
+    let moment = model.momentMuB;
+    params.forEach((name, k) => {
+      if (name === 'D') moment = model.momentMuB * Math.sqrt(fit.parameters[k] / D0);
+      else exNew[name] = fit.parameters[k];
+    });
+    model = { ...model, exchangeK: exNew, momentMuB: moment };
+    if (!atBound && Math.abs(fit.chi2 - chiStart) <= 0.01 * Math.max(fit.chi2, 1)) {
+      converged = true;
+      break;
+    }
+  }
+  task.report(maxSim, maxSim, 'done');
+  const L = last!;
+  return {
+    parametersK: Object.fromEntries(params.map((p, k) => [p, L.values[k]])),
+    uncertaintiesK: Object.fromEntries(params.map((p, k) => [p, L.errors[k]])),
+    chiSquare: L.chi2,
+    reducedChiSquare: L.chi2 / L.dof,
+    degreesOfFreedom: L.dof,
+    modelHeatCapacityJPerMolK: L.modelC,
+    history,
+    converged,
+    model,
+  };
+}
