@@ -15,6 +15,7 @@ import * as neutron from '@multiplet/physics/neutron';
 import * as progress from '@multiplet/physics/progress';
 import * as quadrature from '@multiplet/physics/quadrature';
 import * as random from '@multiplet/physics/random';
+import * as scattering from '@multiplet/physics/scattering';
 import * as thermo from '@multiplet/physics/thermo';
 import * as units from '@multiplet/physics/units';
 
@@ -31,6 +32,7 @@ export const PHYSICS_SCOPE = Object.freeze({
   progress,
   quadrature,
   random,
+  scattering,
   thermo,
   units,
 });
