@@ -28,7 +28,7 @@ import {
 import { runSpinIceMonteCarlo } from '@multiplet/physics/montecarlo';
 import { createRandom, type Random } from '@multiplet/physics/random';
 import { MAGNETIC_PREFACTOR_MB } from '@multiplet/physics/units';
-import { powderDiffuseScattering } from './powderDiffuse';
+import { pairTable, pairCorrelationShells, powderIntensity } from '@multiplet/physics/scattering';
 
 // ---------------------------------------------------------------------------------------------------------------
 // The hidden truth (invented for the demo).
@@ -284,8 +284,10 @@ csv(
 // ---------------------------------------------------------------------------------------------------------------
 // Diffuse magnetic scattering: powder I(Q, T) − I(Q, 20 K) from the same Monte Carlo run's spin snapshots.
 const qGrid = gridOf(TRUTH.diffuse.qInvAngstrom[0], TRUTH.diffuse.qInvAngstrom[1], TRUTH.diffuse.qInvAngstrom[2]);
-const cell = mc.raw.couplings.cell;
-const intensityAt = (t: number) => powderDiffuseScattering(cell, mc.raw.snapshots[mcIndex(t)], qGrid, { momentMuB, ion: ion.name });
+const pairs = pairTable(mc.raw.couplings.cell);
+// Blech–Averbach powder average of the snapshots' pair correlations, barn/sr → mbarn/sr per Dy.
+const intensityAt = (t: number) =>
+  powderIntensity(pairCorrelationShells(pairs, mc.raw.snapshots[mcIndex(t)]), qGrid, momentMuB, (q) => magneticFormFactor(ion.name, q)).map((v) => 1000 * v);
 const reference = intensityAt(TRUTH.diffuse.referenceTemperatureK);
 const diffuseRows: number[][] = qGrid.map((q) => [q]);
 const diffuseHeader = ['Q (angstrom^-1)'];

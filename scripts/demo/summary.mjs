@@ -55,14 +55,14 @@ export function demoSummary(outDir) {
   const diffuse = jsonOf(nb('06-monte-carlo-diffuse.ipynb'), '-diffuse');
   if (diffuse) data.diffuse = diffuse;
 
-  const f = (x, d = 4) => (typeof x === 'number' ? Number(x.toPrecision(d)).toString() : String(x));
+  const f = (x, d = 4) => (typeof x !== 'number' ? String(x) : x !== 0 && Math.abs(x) < 1e-3 ? x.toExponential(d - 1) : Number(x.toPrecision(d)).toString());
   rows.push('Crystal field (meV): fitted ± 1σ   vs hidden truth   (z = deviation / σ)');
   for (const r of data.cef) rows.push(`  ${r.key.padEnd(4)} ${f(r.value, 5).padStart(12)} ± ${f(r.error, 2).padEnd(9)} truth ${f(r.truth, 4).padStart(10)}   z = ${r.z.toFixed(2)}`);
   if (fit) rows.push(`  χ²_red = ${f(fit.chi2Reduced, 3)}; all within 3σ: ${data.checks.cefWithin3Sigma ? 'yes' : 'NO'}; levels (meV): ${fit.levelsMeV.map((x) => x.toFixed(1)).join(', ')}`);
   rows.push(`  hidden levels (meV): ${truth.derived.levelsMeV.map((x) => x.toFixed(1)).join(', ')}; g∥ fitted ${f(data.checks.gParallelFitted, 5)} vs hidden ${truth.derived.gParallel}`);
   if (mb || chi) rows.push(`Bulk, no free parameter: M data/model = ${f(data.checks.magnetizationRatio)}, χ(300 K) data/model = ${f(data.checks.susceptibilityRatio300K)} (hidden mass-calibration factor ${truth.magnetometry.massCalibrationFactor})`);
   if (data.entropy)
-    rows.push(`Entropy: S_mag plateau ${f(data.entropy.plateauJPerMolK)} ± ${f(data.entropy.plateauErrorJPerMolK, 2)} J/mol/K per Dy at ${data.entropy.plateauTemperatureK} K; R ln 2 = ${f(data.entropy.rLn2)}, R[ln 2 − ½ ln(3/2)] (Pauling) = ${f(data.entropy.pauling)}`);
+    rows.push(`Entropy: S_mag plateau ${f(data.entropy.plateauJPerMolK)} ± ${f(data.entropy.plateauErrorJPerMolK, 2)} J/mol/K per Dy at ${data.entropy.plateauTemperatureK} K; R ln 2 = ${f(data.entropy.rLn2)}, spin ice R[ln 2 − ½ ln(3/2)] = ${f(data.entropy.pauling)}`);
   if (data.exchange)
     rows.push(`Effective exchange (K): J_zz = ${f(data.exchange.JzzK)}, J_± = ${f(data.exchange.JpmK, 3)}, J_±± = ${f(data.exchange.JpmpmK, 3)}, J_z± = ${f(data.exchange.JzpmK, 3)}; |J_±/J_zz| = ${f(data.exchange.transverseRatio, 2)} at a CEF gap of ${f(data.exchange.gapMeV)} meV`);
   if (data.monteCarlo)
