@@ -111,6 +111,22 @@ describe('magnetization', () => {
     expect((small * toEmu) / 1 / chi).toBeCloseTo(1, 6);
   });
 
+  it('ferromagnetic molecular field: spontaneous moment below the mean-field T_c, none above (Weiss model)', () => {
+    // Free spin S = 1/2 (g = 2): M = tanh(μB B_eff/k_BT) μB, B_eff = λ′M; mean-field T_c = μB² λ′/k_B (Weiss).
+    const ion = { J: 0.5, gJ: 2, parametersMeV: {} };
+    const toTeslaPerMuB = AVOGADRO_PER_MOL * BOHR_MAGNETON_J_PER_T * 1e3 * 1e-4;
+    const lambda = 1; // mol/emu → λ′ = 0.5585 T/μB
+    const tc = (BOHR_MAGNETON_MEV_PER_T * lambda * toTeslaPerMuB) / BOLTZMANN_MEV_PER_K;
+    const r = magnetization(ion, { temperaturesK: [0.5 * tc, 0.99 * tc, 1.5 * tc], fieldsT: [0, -0.01], direction: [0, 0, 1], meanFieldMolPerEmu: lambda });
+    for (const [i, t] of [[0, 0.5 * tc], [1, 0.99 * tc]] as const) {
+      const m = r.magnetizationMuB[i][0];
+      expect(m).toBeGreaterThan(0.05);
+      expect(m).toBeCloseTo(Math.tanh((BOHR_MAGNETON_MEV_PER_T * lambda * toTeslaPerMuB * m) / (BOLTZMANN_MEV_PER_K * t)), 9);
+    }
+    expect(r.magnetizationMuB[2][0]).toBeCloseTo(0, 9);
+    expect(r.magnetizationMuB[0][1]).toBeLessThan(-0.9); // the field picks the negative branch
+  });
+
   it('reports progress and can be cancelled during a powder average (LongTask)', () => {
     const calls: number[] = [];
     const task = createTask((done) => calls.push(done));

@@ -251,17 +251,17 @@ function crystalCurve(
 }
 
 /**
- * Solve M = f(B + λM) for M along the field. λ < 0 (antiferromagnetic or demagnetising): M − f(B + λM) increases
- * monotonically with M (f is non-decreasing: ∂M/∂B = χ ≥ 0), one root, found by the Illinois variant of regula falsi
- * on [−M_sat, M_sat] (Dowell & Jarratt, BIT 11, 168 (1971)). λ > 0 (ferromagnetic): iterate M ← f(B + λM) from
- * saturation on the field's side, which converges monotonically to the largest (stable) solution.
+ * Solve M = f(B + λM) for M along the field. f is non-decreasing (∂M/∂B = χ ≥ 0). λ < 0 (antiferromagnetic or
+ * demagnetising): g(M) = M − f(B + λM) increases monotonically, one root, found by the Illinois variant of regula
+ * falsi on [−M_sat, M_sat] (Dowell & Jarratt, BIT 11, 168 (1971)). λ > 0 (ferromagnetic): the stable solution is the
+ * largest root on the field's side (for B = 0, the spontaneous moment of mean-field theory); iterate M ← f(B + λM)
+ * from saturation, which descends monotonically onto it, and when that is slow (near the mean-field T_c) bracket the
+ * root by stepping down from saturation until g changes sign, then use the same regula falsi.
  */
 function selfConsistent(f: (bEff: number) => number, b: number, lambda: number, saturation: number): number {
   const tolerance = 1e-12 * Math.max(1, saturation);
-  if (lambda < 0) {
-    const g = (m: number) => m - f(b + lambda * m);
-    let lo = -saturation - 1e-9, hi = saturation + 1e-9;
-    let glo = g(lo), ghi = g(hi);
+  const g = (m: number) => m - f(b + lambda * m);
+  const illinois = (lo: number, hi: number, glo: number, ghi: number): number => {
     let side = 0;
     for (let iter = 0; iter < 200; iter++) {
       const m = (lo * ghi - hi * glo) / (ghi - glo);
@@ -278,12 +278,48 @@ function selfConsistent(f: (bEff: number) => number, b: number, lambda: number, 
       }
     }
     return (lo + hi) / 2;
+  };
+  if (lambda < 0) {
+    const lo = -saturation - 1e-9, hi = saturation + 1e-9;
+    return illinois(lo, hi, g(lo), g(hi));
   }
-  let m = b >= 0 ? saturation : -saturation;
-  for (let iter = 0; iter < 2000; iter++) {
-    const next = f(b + lambda * m);
-    if (Math.abs(next - m) <= tolerance) return next;
+  // Work on the field's side: for B < 0 solve the mirrored problem (M(−B) = −M(B)).
+  const sign = b < 0 ? -1 : 1;
+  const h = (m: number) => sign * g(sign * m);
+  let m = saturation;
+  for (let iter = 0; iter < 60; iter++) {
+    const next = sign * f(b + lambda * sign * m);
+    if (Math.abs(next - m) <= tolerance) return sign * next;
     m = next;
   }
-  return m;
+  // Slow descent: bracket the largest root below the current iterate (h(m) ≥ 0 there) by steps of M_sat/64.
+  let upper = m, hUpper = h(upper);
+  const step = saturation / 64;
+  for (let lower = upper - step; lower >= -saturation - step; lower -= step) {
+    const hLower = h(lower);
+    if (hLower <= 0) return sign * (hLower === 0 ? lower : illinoisMirrored(h, lower, upper, hLower, hUpper, tolerance));
+    upper = lower;
+    hUpper = hLower;
+  }
+  return sign * upper;
+}
+
+/** Illinois regula falsi for h on [lo, hi] with h(lo) ≤ 0 ≤ h(hi). */
+function illinoisMirrored(h: (m: number) => number, lo: number, hi: number, hlo: number, hhi: number, tolerance: number): number {
+  let side = 0;
+  for (let iter = 0; iter < 200; iter++) {
+    const m = (lo * hhi - hi * hlo) / (hhi - hlo);
+    const hm = h(m);
+    if (Math.abs(hm) <= tolerance || hi - lo <= tolerance) return m;
+    if (hm > 0) {
+      hi = m; hhi = hm;
+      if (side === 1) hlo /= 2;
+      side = 1;
+    } else {
+      lo = m; hlo = hm;
+      if (side === -1) hhi /= 2;
+      side = -1;
+    }
+  }
+  return (lo + hi) / 2;
 }
