@@ -12,7 +12,7 @@
 import { InputError } from '../errors';
 import { getIon, type Ion } from '../ions';
 import { cefHamiltonian, type CefParameters } from '../cef/cefHamiltonian';
-import { hermitianEigen } from '../linalg/hermitianEigen';
+import { hermitianEigen, solveInto, type EigenWorkspace, type HermitianEigenResult } from '../linalg/hermitianEigen';
 import type { ComplexMatrix } from '../linalg/complexMatrix';
 import { BOLTZMANN_MEV_PER_K } from '../units';
 import { transitionStrengths } from './transitionStrengths';
@@ -79,10 +79,11 @@ export interface LevelStrengths {
 export function levelStrengths(
   ion: Ion,
   parametersMeV: CefParameters,
-  options: { qDirection?: readonly [number, number, number]; degeneracyToleranceMeV?: number } = {},
+  options: { qDirection?: readonly [number, number, number]; degeneracyToleranceMeV?: number; workspace?: EigenWorkspace } = {},
 ): LevelStrengths {
   const h = cefHamiltonian(ion.J, parametersMeV);
-  const { values, vectors } = hermitianEigen(h);
+  // A caller that diagonalises many times (a fit) passes its own scratch space to avoid reallocating it.
+  const { values, vectors } = options.workspace && options.workspace.n === h.n ? (solveInto(options.workspace, h) as HermitianEigenResult) : hermitianEigen(h);
   const n = values.length;
   const ground = values[0];
   const energiesMeV = Float64Array.from(values, (v) => v - ground);

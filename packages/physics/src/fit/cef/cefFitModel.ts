@@ -21,7 +21,7 @@ import { getIon, type Ion } from '../../ions';
 import { allowedParameters, normalizeCefParameters, type CefParameters } from '../../cef';
 import { stevensOperator } from '../../cef/stevensOperator';
 import { parseParameterKey, parameterKey } from '../../cef/parameterKeys';
-import { hermitianEigen } from '../../linalg/hermitianEigen';
+import { EigenWorkspace, hermitianEigen } from '../../linalg/hermitianEigen';
 import { levelPopulations, levelStrengths, type LevelStrengths } from '../../neutron/cefTransitions';
 import { magneticFormFactor } from '../../neutron/magneticFormFactor';
 import { checkSpectrumOptions, spectrumFromTransitions, type NeutronSpectrumOptions } from '../../neutron/neutronSpectrum';
@@ -187,6 +187,9 @@ export class CefFitModel {
   readonly profiledCount: number;
   hamiltonianEvaluations = 0;
   private frozen: PeakAssignment[] | undefined;
+  private workspace: EigenWorkspace | undefined;
+  /** Populations per temperature for the levels being evaluated (reset by evaluate). */
+  private populationCache = new Map<number, Float64Array>();
 
   constructor(spec: CefFitSpec) {
     if (spec === null || typeof spec !== 'object') throw new InputError('spec', spec, 'a fit specification object');
@@ -411,7 +414,7 @@ export class CefFitModel {
     const computed = new Float64Array(this.peaks.length);
     for (const p of this.peaks) {
       const a = assignments[p.index];
-      const population = levelPopulations(levels, p.temperatureK);
+      const population = this.populations(levels, p.temperatureK);
       computed[p.index] = a.fromLevel < L && a.toLevel < L ? population[a.fromLevel] * levels.pairStrengths[a.toLevel * L + a.fromLevel] * p.factor : 0;
       if (p.intensity !== undefined) {
         const w = 1 / (p.intensityError! * p.intensityError!);
@@ -430,7 +433,7 @@ export class CefFitModel {
     const L = levels.groups.length;
     const assignments: PeakAssignment[] = new Array(this.peaks.length);
     for (const T of this.temperatures) {
-      const population = levelPopulations(levels, T);
+      const population = this.populations(levels, T);
       const weightOf = (a: number, b: number) => population[a] * levels.pairStrengths[b * L + a];
       const energyOf = (a: number, b: number) => levels.levelEnergiesMeV[b] - levels.levelEnergiesMeV[a];
       const atT = this.peaks.filter((p) => p.temperatureK === T);
@@ -503,11 +506,22 @@ export class CefFitModel {
     return assignments;
   }
 
+  private populations(levels: LevelStrengths, temperatureK: number): Float64Array {
+    let p = this.populationCache.get(temperatureK);
+    if (!p) {
+      p = levelPopulations(levels, temperatureK);
+      this.populationCache.set(temperatureK, p);
+    }
+    return p;
+  }
+
   /** Full evaluation at scaled parameters x. */
   evaluate(x: ArrayLike<number>): CefModelEvaluation {
     this.hamiltonianEvaluations++;
     const parameters: CefParameters = this.parametersMeV(x);
-    const levels = levelStrengths(this.ion, parameters);
+    this.workspace ??= new EigenWorkspace(Math.round(2 * this.ion.J) + 1);
+    const levels = levelStrengths(this.ion, parameters, { workspace: this.workspace });
+    this.populationCache.clear();
     const L = levels.groups.length;
     const residuals = new Float64Array(this.residualCount);
 
