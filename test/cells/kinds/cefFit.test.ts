@@ -42,6 +42,18 @@ describe('[cef-fit] cell', () => {
     expect(() => compile(r.data['application/vnd.vegalite.v5+json'] as never)).not.toThrow();
   });
 
+  it('samples the posterior when mcmcSteps > 0 (derived g-factors and levels in the result)', async () => {
+    const session = createCellSession({ notebookDir: '.' });
+    await runOk(session, ER_SAMPLE);
+    await runOk(session, START_CEF);
+    const r = await runOk(session, `[cef-fit] fitM\nstart: cefStart\nmcmcSteps: 12\nmcmcWalkers: 14\npeaks:\n${peakLines()}\n`);
+    const posterior = (r.data[MULTIPLET_MIME] as { result: { posterior: { derived: Record<string, { mean: number }>; sampleCount: number } } }).result.posterior;
+    expect(posterior.sampleCount).toBe(12 * 14);
+    expect(posterior.derived.gParallel!.mean).toBeGreaterThan(0);
+    expect(posterior.derived.level1MeV!.mean).toBeCloseTo(3.68, 1);
+    expect(r.data['text/plain']).toMatch(/χ²_red/);
+  });
+
   it('fits a measured spectrum from a data cell (scale and background profiled)', async () => {
     const session = createCellSession({ notebookDir: '.' });
     await runOk(session, ER_SAMPLE);
