@@ -38,8 +38,8 @@ export interface HermitianEigenOptions {
   /** Compute eigenvectors (default true). Without them the solver is several times faster. */
   vectors?: boolean;
   /**
-   * Largest tolerated |a_ij − conj(a_ji)| relative to the largest |Re a_ij| + |Im a_ij| (default 1e-9). The
-   * matrix actually diagonalised is the Hermitian part (A + A†)/2.
+   * Largest tolerated |a_ij − conj(a_ji)| relative to max(1, largest |Re a_ij| + |Im a_ij|) (default 1e-9).
+   * The matrix actually diagonalised is the Hermitian part (A + A†)/2.
    */
   hermitianTolerance?: number;
   /** Field path used in error messages (default 'matrix'). */
@@ -250,7 +250,9 @@ function loadHermitianPart(ws: EigenWorkspace, a: ComplexMatrix, field: string, 
       wr[ji] = sr; wi[ji] = -si;
     }
   }
-  if (worst > tolerance * scale)
+  // Tolerance relative to max(1, largest entry): rounding noise in a matrix that is zero up to rounding (a
+  // projection of a vanishing operator, say) must not be refused.
+  if (worst > tolerance * Math.max(1, scale))
     throw new InputError(
       `${field}[${worstI}][${worstJ}]`,
       worstI === worstJ ? [are[worstI * n + worstI], aim[worstI * n + worstI]] : [are[worstI * n + worstJ], aim[worstI * n + worstJ]],
