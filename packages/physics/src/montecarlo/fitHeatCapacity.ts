@@ -11,6 +11,8 @@
  * model is not included, so use enough sweeps that the model error is below the data error).
  */
 import { runSpinIceMonteCarlo } from './runSpinIceMonteCarlo';
+import { spinIceRunData, type SpinIceRunData } from './spinIceRunData';
+import type { SpinIceRunOptions } from './spinIceSimulation';
 import { multiHistogramReweighting } from './multiHistogramReweighting';
 import { BOHR_MAGNETON_K_PER_T, type SpinIceModel } from './spinIceCouplings';
 import type { ShellName } from '../lattice/neighbourShells';
@@ -63,6 +65,64 @@ const SHELLS: ShellName[] = ['J1', 'J2', 'J3a', 'J3b'];
  * See also: multiHistogramReweighting, runSpinIceMonteCarlo
  */
 export function fitHeatCapacity(options: HeatCapacityFitOptions, task: LongTask = NO_TASK): HeatCapacityFitResult {
+  const plan = planFit(options);
+  let model = plan.model;
+  const history: HeatCapacityFitResult['history'] = [];
+  let last: FitStep | undefined;
+  let converged = false;
+  for (let it = 0; it < plan.maxSimulations; it++) {
+    task.report(it, plan.maxSimulations, 'simulate');
+    const data = spinIceRunData(runSpinIceMonteCarlo(plan.runOptions(model, it), task).raw);
+    last = fitStep(data, model, options);
+    history.push(last.history);
+    model = last.model;
+    if (last.settled) {
+      converged = true;
+      break;
+    }
+  }
+  task.report(plan.maxSimulations, plan.maxSimulations, 'done');
+  return finish(options, last!, history, converged, model);
+}
+
+/**
+ * The same fit with the simulations run by `simulate` (e.g. in a worker thread through
+ * `runSpinIceMonteCarloAsync`), so that the caller stays responsive and can cancel.
+ * @example await fitHeatCapacityAsync(options, (o) => runSpinIceMonteCarloAsync(o).promise.then((r) => r.data))
+ */
+export async function fitHeatCapacityAsync(
+  options: HeatCapacityFitOptions,
+  simulate: (runOptions: SpinIceRunOptions, iteration: number) => Promise<SpinIceRunData>,
+): Promise<HeatCapacityFitResult> {
+  const plan = planFit(options);
+  let model = plan.model;
+  const history: HeatCapacityFitResult['history'] = [];
+  let last: FitStep | undefined;
+  let converged = false;
+  for (let it = 0; it < plan.maxSimulations; it++) {
+    const data = await simulate(plan.runOptions(model, it), it);
+    last = fitStep(data, model, options);
+    history.push(last.history);
+    model = last.model;
+    if (last.settled) {
+      converged = true;
+      break;
+    }
+  }
+  return finish(options, last!, history, converged, model);
+}
+
+interface FitStep {
+  values: Float64Array;
+  chi2: number;
+  errors: Float64Array;
+  modelC: number[];
+  history: { parametersK: Partial<Record<FitParameter, number>>; chiSquare: number };
+  model: SpinIceModel;
+  settled: boolean;
+}
+
+function planFit(options: HeatCapacityFitOptions) {
   const { data } = options;
   const nd = data.temperaturesK.length;
   if (nd < 2) throw new InputError('data.temperaturesK', data.temperaturesK, 'at least two temperatures');
@@ -81,105 +141,108 @@ export function fitHeatCapacity(options: HeatCapacityFitOptions, task: LongTask 
   if (nd <= params.length) throw new InputError('data.temperaturesK', nd, `more data points than parameters (${params.length})`);
   const tMin = Math.min(...data.temperaturesK), tMax = Math.max(...data.temperaturesK);
   const simT = options.simulationTemperaturesK ?? Array.from({ length: 16 }, (_, k) => 0.8 * tMin * Math.pow((1.25 * tMax) / (0.8 * tMin), k / 15));
-  const maxSim = options.maxSimulations ?? 4;
-  let model: SpinIceModel = { ...options.model, exchangeK: { ...(options.model.exchangeK ?? {}) } };
-  const history: HeatCapacityFitResult['history'] = [];
-  let converged = false;
-  let last: { values: Float64Array; chi2: number; dof: number; errors: Float64Array; modelC: number[] } | undefined;
-  for (let it = 0; it < maxSim; it++) {
-    task.report(it, maxSim, 'simulate');
-    const run = runSpinIceMonteCarlo(
-      { model, temperaturesK: simT, sweeps: options.sweeps, seed: options.seed + 7919 * it, recordShellSums: true, loopMovesPerSweep: options.loopMovesPerSweep },
-      task,
-    );
-    const raw = run.raw;
-    const c = raw.couplings;
-    const N = c.numberOfSites;
-    const mh = multiHistogramReweighting(raw.series.energyK, raw.temperaturesK);
-    const E = mh.energiesK;
-    const e = Object.fromEntries(SHELLS.map((s) => [s, mh.pool(raw.series.shellSums[s])])) as Record<ShellName, Float64Array>;
-    const proj = mh.pool(raw.series.projection);
-    const B = model.fieldTesla ?? [0, 0, 0];
-    const zeemanScale = -model.momentMuB * BOHR_MAGNETON_K_PER_T * Math.hypot(B[0], B[1], B[2]);
-    const ex0 = model.exchangeK ?? {};
-    const D0 = c.dipolarDK;
-    const eZ = new Float64Array(E.length);
-    const eDip = new Float64Array(E.length);
-    for (let n = 0; n < E.length; n++) {
-      eZ[n] = zeemanScale * proj[n];
-      let ex = 0;
-      for (const s of SHELLS) ex += (ex0[s] ?? 0) * e[s][n];
-      eDip[n] = E[n] - c.constantK - ex - eZ[n];
-    }
-    const start = Float64Array.from(params.map((p) => (p === 'D' ? D0 : ex0[p] ?? 0)));
-    const trust = params.map((_, k) => options.trustK ?? Math.max(0.3, 0.3 * Math.abs(start[k])));
-    const Ep = new Float64Array(E.length);
-    const e1 = new Float64Array(E.length);
-    const e2 = new Float64Array(E.length);
-    const predict = (p: Float64Array): number[] => {
-      const J: Record<string, number> = { ...ex0 } as Record<string, number>;
-      let Dr = 1;
-      params.forEach((name, k) => {
-        if (name === 'D') Dr = p[k] / D0;
-        else J[name] = p[k];
-      });
-      const zr = Math.sqrt(Math.max(Dr, 0));
-      let mean = 0;
-      for (let n = 0; n < E.length; n++) {
-        let v = (D0 > 0 ? Dr : 1) * eDip[n] + zr * eZ[n];
-        for (const s of SHELLS) v += (J[s] ?? 0) * e[s][n];
-        Ep[n] = v;
-        mean += v / E.length;
-      }
-      for (let n = 0; n < E.length; n++) {
-        e1[n] = Ep[n] - mean;
-        e2[n] = e1[n] * e1[n];
-      }
-      return data.temperaturesK.map((T) => {
-        const [a1, a2] = mh.average(T, [e1, e2], Ep);
-        return ((a2 - a1 * a1) / (T * T * N)) * GAS_CONSTANT_J_PER_MOL_K;
-      });
-    };
-    const residuals = (p: Float64Array) => {
-      const m = predict(p);
-      return Float64Array.from(m, (v, k) => (v - data.heatCapacityJPerMolK[k]) / data.errorJPerMolK[k]);
-    };
-    const chiAt = (p: Float64Array) => residuals(p).reduce((s, r) => s + r * r, 0);
-    const chiStart = chiAt(start);
-    history.push({ parametersK: Object.fromEntries(params.map((p, k) => [p, start[k]])), chiSquare: chiStart });
-    const lower = start.map((v, k) => v - trust[k]);
-    const upper = start.map((v, k) => v + trust[k]);
-    if (params.includes('D')) {
-      const k = params.indexOf('D');
-      lower[k] = Math.max(lower[k], 1e-6);
-    }
-    const fit = levenbergMarquardt({ parameterCount: params.length, residuals }, start, {
-      lower, upper, maxIterations: 60, errorScaling: 'data', typicalScale: trust,
-    });
-    const atBound = Array.from(fit.parameters).some((v, k) => Math.abs(v - lower[k]) < 1e-9 * (1 + Math.abs(v)) || Math.abs(v - upper[k]) < 1e-9 * (1 + Math.abs(v)));
-    last = { values: fit.parameters, chi2: fit.chi2, dof: nd - params.length, errors: fit.standardErrors, modelC: predict(fit.parameters) };
-    // Move the model to the new point.
-    const exNew = { ...ex0 };
-    let moment = model.momentMuB;
-    params.forEach((name, k) => {
-      if (name === 'D') moment = model.momentMuB * Math.sqrt(fit.parameters[k] / D0);
-      else exNew[name] = fit.parameters[k];
-    });
-    model = { ...model, exchangeK: exNew, momentMuB: moment };
-    if (!atBound && Math.abs(fit.chi2 - chiStart) <= 0.01 * Math.max(fit.chi2, 1)) {
-      converged = true;
-      break;
-    }
-  }
-  task.report(maxSim, maxSim, 'done');
-  const L = last!;
+  const maxSimulations = options.maxSimulations ?? 4;
+  if (!Number.isInteger(maxSimulations) || maxSimulations < 1) throw new InputError('maxSimulations', maxSimulations, 'a positive integer');
   return {
-    parametersK: Object.fromEntries(params.map((p, k) => [p, L.values[k]])),
-    uncertaintiesK: Object.fromEntries(params.map((p, k) => [p, L.errors[k]])),
-    chiSquare: L.chi2,
-    reducedChiSquare: L.chi2 / L.dof,
-    degreesOfFreedom: L.dof,
-    modelHeatCapacityJPerMolK: L.modelC,
+    maxSimulations,
+    model: { ...options.model, exchangeK: { ...(options.model.exchangeK ?? {}) } } as SpinIceModel,
+    runOptions: (model: SpinIceModel, it: number): SpinIceRunOptions => ({
+      model, temperaturesK: simT, sweeps: options.sweeps, seed: options.seed + 7919 * it, recordShellSums: true, loopMovesPerSweep: options.loopMovesPerSweep,
+    }),
+  };
+}
+
+function fitStep(run: SpinIceRunData, model: SpinIceModel, options: HeatCapacityFitOptions): FitStep {
+  const { data } = options;
+  const params = options.parameters;
+  const N = run.numberOfSites;
+  const mh = multiHistogramReweighting(run.series.energyK, run.temperaturesK);
+  const E = mh.energiesK;
+  const e = Object.fromEntries(SHELLS.map((s) => [s, mh.pool(run.series.shellSums[s])])) as Record<ShellName, Float64Array>;
+  const proj = mh.pool(run.series.projection);
+  const B = model.fieldTesla ?? [0, 0, 0];
+  const zeemanScale = -model.momentMuB * BOHR_MAGNETON_K_PER_T * Math.hypot(B[0], B[1], B[2]);
+  const ex0 = model.exchangeK ?? {};
+  const D0 = run.dipolarDK;
+  const eZ = new Float64Array(E.length);
+  const eDip = new Float64Array(E.length);
+  for (let n = 0; n < E.length; n++) {
+    eZ[n] = zeemanScale * proj[n];
+    let ex = 0;
+    for (const s of SHELLS) ex += (ex0[s] ?? 0) * e[s][n];
+    eDip[n] = E[n] - run.constantK - ex - eZ[n];
+  }
+  const start = Float64Array.from(params.map((p) => (p === 'D' ? D0 : ex0[p] ?? 0)));
+  const trust = params.map((_, k) => options.trustK ?? Math.max(0.3, 0.3 * Math.abs(start[k])));
+  const Ep = new Float64Array(E.length);
+  const e1 = new Float64Array(E.length);
+  const e2 = new Float64Array(E.length);
+  const predict = (p: Float64Array): number[] => {
+    const J: Record<string, number> = { ...ex0 } as Record<string, number>;
+    let Dr = 1;
+    params.forEach((name, k) => {
+      if (name === 'D') Dr = p[k] / D0;
+      else J[name] = p[k];
+    });
+    const zr = Math.sqrt(Math.max(Dr, 0));
+    let mean = 0;
+    for (let n = 0; n < E.length; n++) {
+      let v = Dr * eDip[n] + zr * eZ[n];
+      for (const s of SHELLS) v += (J[s] ?? 0) * e[s][n];
+      Ep[n] = v;
+      mean += v / E.length;
+    }
+    for (let n = 0; n < E.length; n++) {
+      e1[n] = Ep[n] - mean;
+      e2[n] = e1[n] * e1[n];
+    }
+    return data.temperaturesK.map((T) => {
+      const [a1, a2] = mh.average(T, [e1, e2], Ep);
+      return ((a2 - a1 * a1) / (T * T * N)) * GAS_CONSTANT_J_PER_MOL_K;
+    });
+  };
+  const residuals = (p: Float64Array) => {
+    const m = predict(p);
+    return Float64Array.from(m, (v, k) => (v - data.heatCapacityJPerMolK[k]) / data.errorJPerMolK[k]);
+  };
+  const chiStart = residuals(start).reduce((s, r) => s + r * r, 0);
+  const lower = start.map((v, k) => v - trust[k]);
+  const upper = start.map((v, k) => v + trust[k]);
+  if (params.includes('D')) {
+    const k = params.indexOf('D');
+    lower[k] = Math.max(lower[k], 1e-6);
+  }
+  const fit = levenbergMarquardt({ parameterCount: params.length, residuals }, start, {
+    lower, upper, maxIterations: 60, errorScaling: 'data', typicalScale: trust,
+  });
+  const atBound = Array.from(fit.parameters).some((v, k) => Math.abs(v - lower[k]) < 1e-9 * (1 + Math.abs(v)) || Math.abs(v - upper[k]) < 1e-9 * (1 + Math.abs(v)));
+  const exNew = { ...ex0 };
+  let moment = model.momentMuB;
+  params.forEach((name, k) => {
+    if (name === 'D') moment = model.momentMuB * Math.sqrt(fit.parameters[k] / D0);
+    else exNew[name] = fit.parameters[k];
+  });
+  return {
+    values: fit.parameters,
+    chi2: fit.chi2,
+    errors: fit.standardErrors,
+    modelC: predict(fit.parameters),
+    history: { parametersK: Object.fromEntries(params.map((p, k) => [p, start[k]])), chiSquare: chiStart },
+    model: { ...model, exchangeK: exNew, momentMuB: moment },
+    settled: !atBound && Math.abs(fit.chi2 - chiStart) <= 0.01 * Math.max(fit.chi2, 1),
+  };
+}
+
+function finish(options: HeatCapacityFitOptions, last: FitStep, history: HeatCapacityFitResult['history'], converged: boolean, model: SpinIceModel): HeatCapacityFitResult {
+  const params = options.parameters;
+  const dof = options.data.temperaturesK.length - params.length;
+  return {
+    parametersK: Object.fromEntries(params.map((p, k) => [p, last.values[k]])),
+    uncertaintiesK: Object.fromEntries(params.map((p, k) => [p, last.errors[k]])),
+    chiSquare: last.chi2,
+    reducedChiSquare: last.chi2 / dof,
+    degreesOfFreedom: dof,
+    modelHeatCapacityJPerMolK: last.modelC,
     history,
     converged,
     model,
