@@ -277,7 +277,7 @@ display({ 'application/vnd.vegalite.v5+json': {
   $schema: 'https://vega.github.io/schema/vega-lite/v5.json', data: { values },
   facet: { field: 'set', type: 'nominal', title: null }, columns: 2,
   spec: { width: 300, height: 170, layer: [
-    { transform: [{ filter: "datum.what === 'data'" }], mark: { type: 'point', size: 6, filled: true, color: '#777' },
+    { transform: [{ filter: "datum.what === 'data'" }], mark: { type: 'point', size: 6, filled: true, color: '#777', clip: true },
       encoding: { x: { field: 'E', type: 'quantitative', title: 'E (meV)' }, y: { field: 'I', type: 'quantitative', title: 'I (mbarn/sr/meV)', scale: { domain: [0, 60] } } } },
     { transform: [{ filter: "datum.what !== 'data'" }], mark: { type: 'line', color: '#c0392b', clip: true },
       encoding: { x: { field: 'E', type: 'quantitative' }, y: { field: 'I', type: 'quantitative' } } } ] },
