@@ -27,6 +27,7 @@ import {
   microscopicCouplingMatrix,
   effectiveExchange,
   furtherNeighbourExchange,
+  curieWeissThetaK,
   type PseudospinCouplings,
   type MicroscopicCouplingSpec,
 } from '@multiplet/physics/exchange';
@@ -115,6 +116,8 @@ export const exchange: ComputeKind = {
       second: r.second ? couplingsJson(r.second) : null,
       ratios: r.ratios,
       interpretation: r.interpretation,
+      // Mean-field θ_CW of the nearest-neighbour pyrochlore model (exchange/curieWeiss.ts); null for a general geometry.
+      thetaCWMeanFieldK: input.geometry === undefined ? curieWeissThetaK(r.second ?? r.first, site.gLocal) : null,
       twoSiteCheck: r.twoSiteCheck!.maxDifferenceMeV,
       twoSiteLevelsMeV: { exact: r.twoSiteCheck!.exactLevelsMeV, effective: r.twoSiteCheck!.effectiveLevelsMeV },
       furtherNeighbours: further
