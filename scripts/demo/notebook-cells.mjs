@@ -10,6 +10,17 @@ const cefCell = (name) => `[crystal-field] ${name}
 B:
 ${Object.entries(FITTED_CEF).map(([k, v]) => `  ${k}: ${v}`).join('\n')}`;
 
+import { readFileSync } from 'node:fs';
+
+/** The peak list of data/ins-peaks.csv written as the peaks of a [cef-fit] cell (one flow map per peak). */
+function peakLines() {
+  const lines = readFileSync(new URL('../../notebooks-demo/data/ins-peaks.csv', import.meta.url), 'utf8').split('\n').filter((l) => l.trim() && !l.startsWith('#'));
+  return lines.slice(1).map((line) => {
+    const [T, Ei, Q, E, dE, I, dI] = line.split(',').map((x) => x.trim());
+    return `  - { temperature: ${T} K, incidentEnergy: ${Ei} meV, Q: ${Q} angstrom^-1, energy: ${E} meV, error: ${dE} meV, intensity: ${I}, intensityError: ${dI} }`;
+  }).join('\n');
+}
+
 const SAMPLE = `[sample] qx7
 compound: QX-7 (invented Dy2M2O7)
 ion: Dy3+
@@ -179,29 +190,40 @@ B:
     {
       md: `## Global fit to the peak list
 
-\`physics.fit.fitCef\` assigns observed peaks to computed transitions optimally (Hungarian method), profiles one
-intensity scale per (temperature, Ei) group (the absolute calibration is uncertain, so only intensity *ratios* within a
-setting count), and runs Levenberg–Marquardt from the start plus 32 random starts. Errors are 1σ from the Jacobian with
+The \`[cef-fit]\` cell fits the six parameters to the peak list (the rows of \`ins-peaks.csv\`, written into the
+cell so that the fit's input is visible in the notebook). It assigns observed peaks to computed transitions
+optimally (Hungarian method), profiles one intensity scale per (temperature, Ei) group (the absolute calibration is
+uncertain, so only intensity *ratios* within a setting count), runs Levenberg–Marquardt from the start plus 32 random
+starts, and samples the posterior with an ensemble MCMC around the best minimum. Errors are 1σ from the Jacobian with
 the data errors as given. **What to look at:** χ²_red near 1; the distinct minima and how much worse they are; the
-correlations.`,
+correlations; the posterior widths next to the Jacobian errors.`,
     },
     {
-      id: 'fit',
+      id: 'peak-fit',
+      code: `[cef-fit] fit
+start: cefStart
+bounds:
+  B43: [0 meV, 0.1 meV]
+starts: 32
+chi2Margin: 1000000
+mcmcSteps: 300
+seed: 11
+peaks:
+${peakLines()}`,
+    },
+    {
+      id: 'fit-summary',
       code: `${COL}
-const d = state.datasets.peaks;
-const T = col(d, 'T'), Ei = col(d, 'Ei'), Q = col(d, 'Q'), E = col(d, 'E'), dE = col(d, 'dE'), I = col(d, 'I'), dI = col(d, 'dI');
-const peaks = E.map((e, k) => ({ temperatureK: T[k], incidentEnergyMeV: Ei[k], qInvAngstrom: Q[k], energyMeV: e, errorMeV: dE[k], intensity: I[k], intensityError: dI[k] }));
-const start = state.results.cefStart.parametersMeV;
-const spec = { ion: 'Dy3+', symmetry: 'D3d', start, peaks, bounds: { B43: [0, 0.1] } };
-const report = physics.fit.fitCef(spec, { starts: 32, seed: 11, chi2Margin: 1e6 });
-const best = report.best;
-display(best.freeKeys.map((key) => ({ parameter: key, 'value (meV)': best.parametersMeV[key].toExponential(4), '1σ (meV)': best.errorsMeV[key].toExponential(2) })));
-display(report.minima.slice(0, 6).map((m, i) => ({ minimum: i + 1, 'χ²': m.chi2.toFixed(1), 'χ²_red': m.chi2Reduced.toFixed(2), hits: m.hits,
+const r = state.results.fit;
+const best = r.best;
+display(best.freeKeys.map((key) => ({ parameter: key, 'value (meV)': best.B[key].toExponential(4), '1σ Jacobian (meV)': best.errors[key].toExponential(2),
+  'posterior mean (meV)': r.posterior.parameters[key].mean.toExponential(4), 'posterior σ (meV)': r.posterior.parameters[key].standardDeviation.toExponential(2) })));
+display(r.minima.slice(0, 6).map((m, i) => ({ minimum: i + 1, 'χ²': m.chi2.toFixed(1), 'χ²_red': m.chi2Reduced.toFixed(2), hits: m.hits,
   'levels (meV)': m.levelsMeV.map((x) => x.toFixed(1)).join(', ') })));
 show({ chi2: Number(best.chi2.toFixed(2)), chi2Reduced: Number(best.chi2Reduced.toFixed(3)), degreesOfFreedom: best.degreesOfFreedom,
-   startsRun: report.startsRun, distinctMinima: report.distinctMinimaFound, warnings: report.warnings,
-   parametersMeV: best.parametersMeV, errorsMeV: best.errorsMeV, levelsMeV: best.levelsMeV,
-   minima: report.minima.slice(0, 6).map((m) => ({ chi2: Number(m.chi2.toFixed(2)), levelsMeV: m.levelsMeV.map((x) => Number(x.toFixed(2))) })) })`,
+   startsRun: r.startsRun, distinctMinima: r.distinctMinimaFound, warnings: r.warnings,
+   parametersMeV: best.B, errorsMeV: best.errors, levelsMeV: best.levelsMeV,
+   minima: r.minima.slice(0, 6).map((m) => ({ chi2: Number(m.chi2.toFixed(2)), levelsMeV: m.levelsMeV.map((x) => Number(x.toFixed(2))) })) })`,
     },
     {
       md: `## The fitted crystal field
@@ -224,21 +246,15 @@ choose. Never quote the parameters of one minimum without saying how many you lo
 
 The Jacobian errors assume a locally quadratic χ². An ensemble MCMC (affine-invariant sampler) around the best fit
 checks this and propagates the uncertainty to derived quantities — level energies and the ground-doublet g-factors —
-which are often better determined than the B_n^m themselves.`,
+which are often better determined than the B_n^m themselves. The \`[cef-fit]\` cell above already ran the sampler
+(\`mcmcSteps: 300\`); here are the derived quantities.`,
     },
     {
       id: 'mcmc',
       code: `${COL}
-const d = state.datasets.peaks;
-const T = col(d, 'T'), Ei = col(d, 'Ei'), Q = col(d, 'Q'), E = col(d, 'E'), dE = col(d, 'dE'), I = col(d, 'I'), dI = col(d, 'dI');
-const peaks = E.map((e, k) => ({ temperatureK: T[k], incidentEnergyMeV: Ei[k], qInvAngstrom: Q[k], energyMeV: e, errorMeV: dE[k], intensity: I[k], intensityError: dI[k] }));
-// A local fit from the fitted crystal field (the cell above) gives the solution the sampler starts from.
-const spec = { ion: 'Dy3+', symmetry: 'D3d', start: state.results.cefFit.parametersMeV, peaks, bounds: { B43: [0, 0.1] } };
-const report = physics.fit.fitCef(spec, { starts: 0 });
-const posterior = physics.fit.sampleCefPosterior(spec, report.best, { steps: 300, burnIn: 150, walkers: 16, seed: 5 });
-const rows = Object.entries(posterior.derived).map(([name, s]) => ({ quantity: name, mean: s.mean.toPrecision(5), 'std. dev.': s.standardDeviation.toPrecision(2) }));
-display(rows);
-show({ acceptanceFraction: Number(posterior.acceptanceFraction.toFixed(3)), samples: posterior.sampleCount,
+const posterior = state.results.fit.posterior;
+display(Object.entries(posterior.derived).map(([name, s]) => ({ quantity: name, mean: s.mean.toPrecision(5), 'std. dev.': s.standardDeviation.toPrecision(2) })));
+show({ acceptanceFraction: Number(posterior.acceptanceFraction.toFixed(3)), samples: posterior.sampleCount, derived: posterior.derived,
    parameters: Object.fromEntries(Object.entries(posterior.parameters).map(([k, s]) => [k, [Number(s.mean.toPrecision(4)), Number(s.standardDeviation.toPrecision(2))]])) })`,
     },
     {
@@ -318,25 +334,34 @@ the data (mass, demagnetization, diamagnetic background).`,
     {
       md: `## M(B) of the powder
 
-For each field direction the single-ion Hamiltonian H_CEF − g_J μB B·J is diagonalised exactly and the moment along B
+The \`[magnetization]\` cell computes it: for each field direction the single-ion Hamiltonian H_CEF − g_J μB B·J is diagonalised exactly and the moment along B
 is thermally averaged; the powder average uses a Lebedev grid on the sphere. For an Ising moment μ along the local axis
 the powder saturates at μ/2 ≈ 5 μB per Dy — not at g_J J = 10 μB. **What to look at:** the shape at 2 K (fast rise to
 half saturation) and the ratio data/model across fields (a constant ratio ≠ 1 is a mass or calibration error, not
 physics).`,
     },
     {
+      id: 'm-calc',
+      code: `[magnetization] mCalc
+cef: cef
+temperatures: [2 K, 5 K, 20 K]
+fields: 0.25 T .. 7 T / 28
+powderDegree: 41`,
+    },
+    {
+      md: `The typed cell computed the prediction; the next cell lays the data over it and measures the ratio.`,
+    },
+    {
       id: 'mb',
       code: `${COL}
 const d = state.datasets.magnetization;
 const T = col(d, 'T'), B = col(d, 'B'), M = col(d, 'M'), dM = col(d, 'dM');
-const cef = state.results.cef;
-const temps = [...new Set(T)];
-const fields = [...new Set(B)];
-const m = physics.thermo.magnetization({ J: cef.J, gJ: cef.gJ, parametersMeV: cef.parametersMeV }, { temperaturesK: temps, fieldsT: fields, direction: 'powder', powder: { degree: 41 } });
+const m = state.results.mCalc;
 const values = [];
 let chi2 = 0, ratio = 0;
 T.forEach((t, k) => {
-  const calc = m.magnetizationMuB[temps.indexOf(t)][fields.indexOf(B[k])];
+  const i = m.temperaturesK.indexOf(t), j = m.fieldsT.findIndex((b) => Math.abs(b - B[k]) < 1e-9);
+  const calc = m.magnetizationMuB[i][j];
   chi2 += ((M[k] - calc) / dM[k]) ** 2; ratio += M[k] / calc;
   values.push({ B: B[k], M: M[k], T: t + ' K', what: 'data' }, { B: B[k], M: calc, T: t + ' K', what: 'CEF, no free parameter' });
 });
@@ -355,16 +380,26 @@ show({ points: T.length, chi2Reduced: Number((chi2 / T.length).toFixed(2)), mean
 The Van Vleck susceptibility (Curie terms within each level plus the field-induced mixing between levels), powder
 averaged, per mole of formula units (2 Dy). At high temperature the excited doublets are populated and χT approaches
 the free-ion value; at low temperature only the ground doublet counts. A Curie–Weiss fit of the data between 10 and
-30 K gives the effective moment of the ground doublet and a Weiss temperature; a θ_CW of order ±1 K is all the
+30 K (the \`[curie-weiss-fit]\` cell, per Dy) gives the effective moment of the ground doublet and a Weiss temperature; a θ_CW of order ±1 K is all the
 interactions leave visible in χ of a spin ice.`,
+    },
+    { id: 'chi-calc', code: `[susceptibility] chiCalc\ncef: cef\ntemperatures: 2 K .. 300 K / 299` },
+    {
+      id: 'cw-data',
+      code: `[curie-weiss-fit] cwData
+data: susceptibility
+chiColumn: chi
+errorColumn: dchi
+range: [10 K, 30 K]
+perFormulaUnit: true`,
     },
     {
       id: 'chi',
       code: `${COL}
 const d = state.datasets.susceptibility;
-const T = col(d, 'T'), chi = col(d, 'chi'), dchi = col(d, 'dchi');
-const cef = state.results.cef;
-const calc = physics.thermo.vanVleckSusceptibility({ J: cef.J, gJ: cef.gJ, parametersMeV: cef.parametersMeV }, { temperaturesK: T, direction: 'powder', ionsPerFormulaUnit: 2 }).chiEmuPerMolFormulaUnit;
+const T = col(d, 'T'), chi = col(d, 'chi');
+const model = state.results.chiCalc;
+const calc = T.map((t) => model.chiEmuPerMolFormulaUnit[model.temperaturesK.findIndex((x) => Math.abs(x - t) < 1e-9)]);
 const values = T.flatMap((t, k) => [
   { T: t, inv: 1 / chi[k], what: 'data' }, { T: t, inv: 1 / calc[k], what: 'CEF, no free parameter' }]);
 display({ 'application/vnd.vegalite.v5+json': {
@@ -374,8 +409,8 @@ display({ 'application/vnd.vegalite.v5+json': {
       encoding: { x: { field: 'T', type: 'quantitative', title: 'T (K)' }, y: { field: 'inv', type: 'quantitative', title: '1/χ (mol/emu per f.u.)' } } },
     { transform: [{ filter: "datum.what !== 'data'" }], mark: { type: 'line', color: '#c0392b' },
       encoding: { x: { field: 'T', type: 'quantitative' }, y: { field: 'inv', type: 'quantitative' } } } ] } });
-const cw = physics.thermo.curieWeissFit(T, chi.map((x) => x / 2), { rangeK: [10, 30], uncertaintyEmuPerMol: dchi.map((x) => x / 2) });
-const cwModel = physics.thermo.curieWeissFit(T, Array.from(calc, (x) => x / 2), { rangeK: [10, 30] });
+const cw = state.results.cwData;
+const cwModel = physics.thermo.curieWeissFit(T, calc.map((x) => x / 2), { rangeK: [10, 30] });
 const at = (t) => T.indexOf(t);
 show({ ratioDataOverModelAt300K: Number((chi[at(300)] / calc[at(300)]).toFixed(4)), ratioAt10K: Number((chi[at(10)] / calc[at(10)]).toFixed(4)),
    curieWeissData10to30K: { muEffMuBPerDy: Number(cw.effectiveMomentMuB.toFixed(3)), thetaCWK: Number(cw.weissTemperatureK.toFixed(2)), thetaErrorK: Number(cw.uncertainty.weissTemperatureK.toFixed(2)) },

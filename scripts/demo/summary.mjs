@@ -24,7 +24,7 @@ export function demoSummary(outDir) {
   const nb = (name) => join(outDir, name);
   const rows = [];
   const data = { cef: [], checks: {} };
-  const fit = jsonOf(nb('02-crystal-field-fit.ipynb'), '-fit');
+  const fit = jsonOf(nb('02-crystal-field-fit.ipynb'), '-fit-summary');
   if (fit) {
     for (const [key, trueValue] of Object.entries(truth.cefMeV)) {
       const value = fit.parametersMeV[key];

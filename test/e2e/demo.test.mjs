@@ -40,7 +40,7 @@ test('the notebooks state that the compound and its data are invented', () => {
 });
 
 test('the crystal-field fit recovers every hidden B within 3 of its reported standard errors, with χ²_red < 2', () => {
-  const fit = jsonOutput(read('02-crystal-field-fit.ipynb'), '-fit');
+  const fit = jsonOutput(read('02-crystal-field-fit.ipynb'), '-fit-summary');
   assert.ok(fit.chi2Reduced < 2, `χ²_red = ${fit.chi2Reduced}`);
   for (const [key, value] of Object.entries(truth.cefMeV)) {
     const z = (fit.parametersMeV[key] - value) / fit.errorsMeV[key];
@@ -51,7 +51,7 @@ test('the crystal-field fit recovers every hidden B within 3 of its reported sta
 });
 
 test('the parameters typed into notebooks 3, 5 and 6 are the fit of notebook 2 (within 0.2σ)', () => {
-  const fit = jsonOutput(read('02-crystal-field-fit.ipynb'), '-fit');
+  const fit = jsonOutput(read('02-crystal-field-fit.ipynb'), '-fit-summary');
   for (const [key, text] of Object.entries(FITTED_CEF)) {
     const typed = Number.parseFloat(text);
     assert.ok(Math.abs(typed - fit.parametersMeV[key]) < 0.2 * fit.errorsMeV[key], `${key}: typed ${typed}, fitted ${fit.parametersMeV[key]} ± ${fit.errorsMeV[key]}`);
