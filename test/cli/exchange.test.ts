@@ -40,13 +40,14 @@ describe('multiplet compute exchange (built CLI)', () => {
       ion: 'Yb3+',
       B: { B20: 4.6, B40: 0.23 },
       unit: 'K',
-      geometry: { bondVectorAngstrom: [3.5, 0, 0], frameI: frame, frameJ: frame },
+      geometry: { positionIAngstrom: [1, 1, 1], positionJAngstrom: [4.5, 1, 1], frameI: frame, frameJ: frame },
       coupling: { matrixMeV: [[0.01, 0, 0], [0, 0.01, 0], [0, 0, 0.02]], dipolar: true },
       order: 1,
     });
     expect(r.stderr).toBe('');
     const out = JSON.parse(r.stdout);
     expect(out.second).toBeNull();
+    expect(out.bondVectorAngstrom).toEqual([3.5, 0, 0]);
     expect(out.first.Jzz).not.toBe(0);
   });
 

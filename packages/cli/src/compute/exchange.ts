@@ -10,7 +10,8 @@
  *   symmetry                optional site symmetry check of B (e.g. 'D3d')
  *   latticeConstantAngstrom cubic lattice constant a (r_nn = a√2/4)                      required unless geometry
  *   bond                    [from, to] pyrochlore sublattices (default [0, 1])
- *   geometry                {bondVectorAngstrom, frameI, frameJ}: a general two-site geometry instead of the lattice
+ *   geometry                {bondVectorAngstrom | positionIAngstrom + positionJAngstrom, frameI, frameJ}: a general
+ *                           two-site geometry instead of the lattice
  *   coupling                {isotropicMeV?, matrixMeV? (3×3, global frame), dipolar?: true}          required
  *   order                   1 or 2 (default 2)
  *   furtherNeighbours       true: also the J1/J2/J3a/J3b couplings mediated by a virtually excited middle ion
@@ -74,8 +75,22 @@ export const exchange: ComputeKind = {
       if (input.latticeConstantAngstrom !== undefined || input.bond !== undefined)
         throw new InputError('geometry', input.geometry, 'either geometry or latticeConstantAngstrom (+ bond), not both');
       const g = input.geometry as Record<string, unknown>;
-      if (g === null || typeof g !== 'object') throw new InputError('geometry', g, 'an object {bondVectorAngstrom, frameI, frameJ}');
-      geometry = generalBond(g.bondVectorAngstrom, g.frameI, g.frameJ, 'geometry');
+      if (g === null || typeof g !== 'object') throw new InputError('geometry', g, 'an object {bondVectorAngstrom (or positionIAngstrom and positionJAngstrom), frameI, frameJ}');
+      for (const key of Object.keys(g))
+        if (!['bondVectorAngstrom', 'positionIAngstrom', 'positionJAngstrom', 'frameI', 'frameJ'].includes(key))
+          throw new InputError(`geometry.${key}`, g[key], 'no such field; fields are bondVectorAngstrom or positionIAngstrom + positionJAngstrom, frameI, frameJ');
+      let bondVector = g.bondVectorAngstrom;
+      if (g.positionIAngstrom !== undefined || g.positionJAngstrom !== undefined) {
+        if (bondVector !== undefined) throw new InputError('geometry.bondVectorAngstrom', bondVector, 'either bondVectorAngstrom or the two positions, not both');
+        const [pi, pj] = (['positionIAngstrom', 'positionJAngstrom'] as const).map((key) => {
+          const v = g[key];
+          if (!Array.isArray(v) || v.length !== 3 || v.some((x) => typeof x !== 'number' || !Number.isFinite(x)))
+            throw new InputError(`geometry.${key}`, v, 'three finite numbers (Å)');
+          return v as number[];
+        });
+        bondVector = [pj[0] - pi[0], pj[1] - pi[1], pj[2] - pi[2]];
+      }
+      geometry = generalBond(bondVector, g.frameI, g.frameJ, 'geometry');
     } else {
       if (input.latticeConstantAngstrom === undefined)
         throw new InputError('latticeConstantAngstrom', undefined, 'the cubic lattice constant in Å (or a general "geometry")');
