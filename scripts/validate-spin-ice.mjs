@@ -75,13 +75,14 @@ const elapsed = () => `${((Date.now() - t0) / 1000).toFixed(0)} s`;
     { model, temperaturesK: temps, sweeps, seed: 3, loopMovesPerSweep: Math.max(8, N / 8) },
     { report(done, total) { const p = Math.floor((100 * done) / total); if (p % 10 === 0 && p !== lastPct) { lastPct = p; process.stdout.write(`  dipolar run ${p} %\r`); } }, checkpoint() {}, cancelled: false },
   );
+  process.stdout.write("\n");
   const mh = P.multiHistogramReweighting(run.raw.series.energyK, temps);
   const fine = Array.from({ length: 181 }, (_, k) => 0.12 + (0.3 - 0.12) * (k / 180));
   const rw = P.reweightedHeatCapacity(mh, fine, N);
   let kMax = 0;
   rw.heatCapacityJPerMolK.forEach((c, k) => { if (c > rw.heatCapacityJPerMolK[kMax]) kMax = k; });
   const psi = run.result.orderParameter001.map((v) => v.toFixed(2)).join(' ');
-  console.log(`[3] dipolar spin ice L = ${L} (N = ${N}), D = ${D.toFixed(3)} K (μ = ${momentMuB.toFixed(3)} μB at a = ${a} Å), J1 = ${3 * 1.24} K, ${sweeps} sweeps:`);
+  console.log(`[3] dipolar spin ice L = ${L} (N = ${N}), D = ${D.toFixed(3)} K (μ = ${momentMuB.toFixed(3)} μB at a = ${a} Å), J1 = ${(3 * 1.24).toFixed(2)} K, ${sweeps} sweeps:`);
   console.log(`    T = ${temps.map((t) => t.toFixed(3)).join(' ')}`);
   console.log(`    C = ${run.result.heatCapacityJPerMolK.map((c) => c.toFixed(2)).join(' ')} J/(mol K)`);
   console.log(`    ψ(001) = ${psi}`);

@@ -15,8 +15,11 @@ import { susceptibilityKind } from './susceptibility';
 import { heatCapacityKind } from './heatCapacity';
 import { heatCapacityReductionKind } from './heatCapacityReduction';
 import { curieWeissFitKind } from './curieWeissFit';
+import { spinIceMcKind } from './spinIceMc';
+import { structureFactorKind } from './structureFactor';
+import { mcFitKind } from './mcFit';
 
-const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind, exchangeKind, neutronSpectrumKind, cefFitKind, pointChargeKind, magnetizationKind, susceptibilityKind, heatCapacityKind, heatCapacityReductionKind, curieWeissFitKind];
+const KINDS: AnyCellKind[] = [sampleKind, dataKind, crystalFieldKind, exchangeKind, neutronSpectrumKind, cefFitKind, pointChargeKind, magnetizationKind, susceptibilityKind, heatCapacityKind, heatCapacityReductionKind, curieWeissFitKind, spinIceMcKind, structureFactorKind, mcFitKind];
 
 const REGISTRY = new Map(KINDS.map((k) => [k.kind, k]));
 
