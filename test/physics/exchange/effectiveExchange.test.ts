@@ -56,6 +56,23 @@ describe('first order, pure |±J⟩ doublets (exact limit)', () => {
   });
 });
 
+describe('first order, mixed D3d doublet against the g-tensor of the CEF module (independent code)', () => {
+  it('isotropic exchange: J_zz = −(1/3)(g∥/g_J)² J_ex and J_± = (g⊥/g_J)² J_ex / 6', () => {
+    // Derivation: on a D3d doublet P J^a P = (g_a/g_J) S^a (g_x = g_y = g⊥, g_z = g∥: effective-spin Hamiltonian,
+    // Abragam & Bleaney 1970, ch. 3), so J_ab = J_ex (ê_a^i·ê_b^j)(g_a g_b/g_J²). Bond 0→1: ẑ_0·ẑ_1 = −1/3,
+    // x̂_0·x̂_1 = 1/3, ŷ_0·ŷ_1 = −1, and J_± = −(J_xx + J_yy)/4 = (g⊥/g_J)² J_ex/6.
+    const cef = solveCef(yb, YB_B);
+    const gPar = cef.groundDoublet!.gParallel, gPerp = cef.groundDoublet!.gPerpendicular;
+    const site = pseudospinSite(yb, cef.energiesMeV, cef.eigenvectors);
+    const bond = pyrochloreBond(10.03);
+    const jEx = 0.01;
+    const r = effectiveExchange(site, site, bond, microscopicCouplingMatrix({ isotropicMeV: jEx }, bond, yb.gJ, yb.gJ), { order: 1, twoSiteCheck: false });
+    expect(r.first.Jzz).toBeCloseTo((-1 / 3) * (gPar / yb.gJ) ** 2 * jEx, 12);
+    expect(r.first.Jpm).toBeCloseTo(((gPerp / yb.gJ) ** 2 * jEx) / 6, 12);
+    expect(Math.abs(site.gLocal[2][2])).toBeCloseTo(gPar, 10);
+  });
+});
+
 function slope(xs: number[], ys: number[]): number {
   const lx = xs.map(Math.log), ly = ys.map(Math.log);
   const mx = lx.reduce((s, x) => s + x, 0) / lx.length, my = ly.reduce((s, y) => s + y, 0) / ly.length;
