@@ -129,7 +129,10 @@ export function hermitianEigen(
   return solveInto(new EigenWorkspace(n), a, options);
 }
 
-/** Validate shape; returns n. */
+/**
+ * Check that `a` is a ComplexMatrix with n² real and imaginary entries; returns n.
+ * @throws InputError naming `field` otherwise.
+ */
 export function checkShape(a: ComplexMatrix, field: string): number {
   if (a === null || typeof a !== 'object' || !(a.re instanceof Float64Array) || !(a.im instanceof Float64Array))
     throw new InputError(field, a, 'a ComplexMatrix {n, re, im} with Float64Array parts');
@@ -196,9 +199,9 @@ export function solveInto(
       }
     }
     const mod = Math.sqrt(best);
-    const scale = 1 / (mod * Math.sqrt(norm2));
+    const factor = 1 / (mod * Math.sqrt(norm2));
     // multiply by conj(w_best)/|w_best| / ‖w‖
-    const cr = wr[row + bestIndex] * scale, ci = -wi[row + bestIndex] * scale;
+    const cr = wr[row + bestIndex] * factor, ci = -wi[row + bestIndex] * factor;
     for (let r = 0; r < n; r++) {
       const xr = wr[row + r], xi = wi[row + r];
       outRe[r * n + k] = xr * cr - xi * ci;
