@@ -40,6 +40,17 @@ describe('fitCef on peak lists', () => {
     expect(a.distinctMinimaFound).toBeGreaterThanOrEqual(a.minima.length);
   });
 
+  it('from random starts alone (no start values) the energies-only search reaches exact solutions and lists the alternatives', () => {
+    const energiesOnly = syntheticPeaks().map(({ energyMeV, errorMeV, temperatureK }) => ({ energyMeV, errorMeV, temperatureK }));
+    const report = fitCef({ ion: 'Er3+', symmetry: 'D3d', start: {}, peaks: energiesOnly }, { starts: 16, seed: 1 });
+    expect(report.best.chi2).toBeLessThan(1e-8);
+    const exact = report.minima.filter((m) => m.chi2 < 1e-8);
+    expect(exact.length).toBeGreaterThanOrEqual(1);
+    // every exact minimum reproduces all ten peak energies: these are the alternative parameter sets the data allow
+    for (const m of exact) for (const r of m.peakEnergyResiduals) expect(Math.abs(r)).toBeLessThan(1e-3);
+    expect(report.minima.reduce((s, m) => s + m.hits, 0)).toBeLessThanOrEqual(17);
+  });
+
   it('honours a pinned assignment and fixed parameters', () => {
     const peaks = syntheticPeaks();
     const t = cefTransitions('Er3+', TRUTH, 5);

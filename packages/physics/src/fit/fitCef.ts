@@ -5,7 +5,7 @@
  *
  * Local fits are Levenberg–Marquardt (levenbergMarquardt.ts) in the scaled parameter space of cef/cefFitModel.ts,
  * with the peak assignment frozen while the Jacobian is taken; the global search is multiStartSearch from the user's
- * start plus `starts` Latin-hypercube starts. Errors are 1σ from the Jacobian covariance with the data errors
+ * start plus `starts` random starts brought to the energy scale of the data (cefRandomStarts). Errors are 1σ from the Jacobian covariance with the data errors
  * trusted as given (errorScaling 'data', default) or inflated by χ²_red ('residual').
  *
  * @example
@@ -14,7 +14,10 @@
  *   report.best.parametersMeV; report.best.errorsMeV; report.minima.length
  * See also: sampleCefPosterior, multiStartSearch, cefTransitions
  */
+import { InputError } from '../errors';
 import type { LongTask } from '../progress';
+import { createRandom, type Random } from '../random';
+import { levelStrengths } from '../neutron/cefTransitions';
 import { CefFitModel, type CefFitSpec, type PeakAssignment } from './cef/cefFitModel';
 import { finiteDifferenceJacobian } from './finiteDifferenceJacobian';
 import { multiStartSearch } from './multiStartSearch';
@@ -145,15 +148,49 @@ export function describeCefSolution(model: CefFitModel, fit: LevenbergMarquardtR
   };
 }
 
+/**
+ * Random starts on the right energy scale. H_CEF is linear in the B's, so the level energies of λB are λ times
+ * those of B: each random direction in the scaled box is stretched so that its highest level lies at 1–1.3 times the
+ * largest observed energy (when there are peaks or spectra), then clipped to the box. Without this, most uniform
+ * starts in the box put levels hundreds of meV away from the data and end in far local minima.
+ */
+export function cefRandomStarts(model: CefFitModel, count: number, random: Random): number[][] {
+  const targets = [
+    ...model.peaks.map((p) => Math.abs(p.energyMeV)),
+    ...model.spectra.map((sp) => 0.8 * Math.max(...sp.energiesMeV.map(Math.abs))),
+  ];
+  const largest = targets.length ? Math.max(...targets) : 0;
+  const p = model.parameterCount;
+  const nB = model.freeKeys.length;
+  const starts: number[][] = [];
+  for (let k = 0; k < count; k++) {
+    const x = Array.from({ length: p }, (_, j) => model.lowerScaled[j] + random.nextDouble() * (model.upperScaled[j] - model.lowerScaled[j]));
+    if (largest > 0) {
+      const levels = levelStrengths(model.ion, model.parametersMeV(x)).levelEnergiesMeV;
+      const top = levels[levels.length - 1];
+      if (top > 0) {
+        const lambda = (largest * (1 + 0.3 * random.nextDouble())) / top;
+        for (let j = 0; j < nB; j++) x[j] = Math.min(model.upperScaled[j], Math.max(model.lowerScaled[j], lambda * x[j]));
+      }
+    }
+    starts.push(x);
+  }
+  return starts;
+}
+
 /** Fit B_n^m to the data in `spec`; see the module comment. Throws InputError on bad input. */
 export function fitCef(spec: CefFitSpec, options: FitCefOptions = {}): CefFitReport {
   const model = new CefFitModel(spec);
   const problem = cefLeastSquaresProblem(model);
+  const starts = options.starts ?? 0;
+  if (!Number.isInteger(starts) || starts < 0) throw new InputError('starts', starts, 'a non-negative integer');
+  const random = createRandom(options.seed ?? 0);
+  const randomStarts = cefRandomStarts(model, starts, random);
   const search = multiStartSearch(problem, {
     lower: model.lowerScaled,
     upper: model.upperScaled,
-    starts: options.starts ?? 0,
-    initialPoints: [model.startScaled],
+    starts: 0,
+    initialPoints: [model.startScaled, ...randomStarts],
     seed: options.seed ?? 0,
     chi2Margin: options.chi2Margin,
     errorScaling: options.errorScaling ?? 'data',
