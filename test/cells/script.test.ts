@@ -28,6 +28,20 @@ describe('script cells', () => {
     expect(r.outcome).toEqual({ status: 'ok' });
   });
 
+  it('clearOutput(wait?) emits clear_output in order with the other outputs; a bad argument is a clear error', async () => {
+    const s = createCellSession();
+    const r = await runOk(s, 'console.log("step 1");\nclearOutput(true);\ndisplay("step 2");\nclearOutput();\nclearOutput(false);\n"done"');
+    expect(r.outputs.map((o) => o.type)).toEqual(['stream', 'clear_output', 'display_data', 'clear_output', 'clear_output']);
+    expect(r.outputs.filter((o) => o.type === 'clear_output')).toEqual([
+      { type: 'clear_output', wait: true },
+      { type: 'clear_output', wait: false },
+      { type: 'clear_output', wait: false },
+    ]);
+    expect(r.data['text/plain']).toBe('done');
+    const bad = errorOf(await run(s, 'clearOutput("yes")'));
+    expect(bad.evalue).toMatch(/^line 1, column 1: TypeError: clearOutput\(wait\): wait must be true or false, got 'yes'/);
+  });
+
   it('reports syntax and runtime errors at the cell line', async () => {
     const s = createCellSession();
     const syntax = errorOf(await run(s, 'const a = 1;\nconst b = (;\n'));

@@ -139,7 +139,7 @@ export function complete(code: string, cursorPos: number, state: SampleState): C
   const parts = word.split('.');
   const last = parts.pop() ?? '';
   const start = lineStart + before.length - last.length;
-  if (parts.length === 0) return reply(['physics', 'state', 'display', 'console', 'task'], start, last);
+  if (parts.length === 0) return reply(['physics', 'state', 'display', 'clearOutput', 'console', 'task'], start, last);
   let target: unknown;
   if (parts[0] === 'physics') target = PHYSICS_SCOPE;
   else if (parts[0] === 'state') target = { sample: null, datasets: Object.fromEntries(state.datasets().map((n) => [n, 1])), results: Object.fromEntries(state.names().map((n) => [n, 1])), info: {}, names: [] };

@@ -5,6 +5,8 @@
  *   state     a read-only view of the sample state (sample, datasets, results by name)
  *   display   display(x): rich output (a MIME bundle object, an array of records → table, anything → text)
  *   console   log/info/debug → stdout stream, warn/error → stderr stream
+ *   clearOutput  clearOutput(wait?) clears the cell's outputs so far (IOPub clear_output); with wait = true the
+ *             front end clears just before the next output arrives (no flicker in animations and progress loops)
  *   task      task.report(done, total) shows progress in one updating display; task.checkpoint() stops the
  *             script when the kernel is interrupted (call it in long loops)
  * If the last statement is an expression, its value is the cell's execute_result (as in other notebooks).
@@ -21,6 +23,7 @@ import { lineMap } from './sourceMap';
 import { htmlTable } from '../render/format';
 import type { ProgressTask } from '../session/progress';
 import { CancelledError } from '@multiplet/physics/errors';
+import { AFTER_AWAIT, CHECK, applyInsertions, interruptPoints } from './instrument';
 
 export interface ScriptEnv {
   physics: unknown;
@@ -30,9 +33,15 @@ export interface ScriptEnv {
   emit(output: CellOutput): void;
   /** Allocates a display id for display(x, { id: true }) style updates. */
   nextDisplayId(): string;
+  /** The host's cancel flag (index 0 set to 1 on interrupt); checked in the cell's loops, calls and awaits. */
+  cancelFlag?: Int32Array;
 }
 
 const FILENAME = 'cell.ts';
+/** Context global holding the running cell's interrupt checks (read once, when the cell starts). */
+const CELL_HOOKS = '__multipletCell';
+/** How often a running cell's cancel flag is polled while the cell awaits. */
+const WATCH_INTERVAL_MS = 20;
 
 interface Compiled {
   code: string;
@@ -68,21 +77,23 @@ export function compileScript(source: string): Compiled {
     const hint = /import|export/.test(js.slice(0, 2000)) && /'import' and 'export'/.test(message) ? ' (import/export are not available in script cells: physics and state are already in scope)' : '';
     throw new CellError('CellSyntaxError', `script: ${message}${hint}`, { expected: 'a script without import or export' });
   }
+  const insertions = interruptPoints(program);
   const last = program.body[program.body.length - 1];
   if (last && last.type === 'ExpressionStatement' && last.expression) {
     // From the statement's start (not the expression's): a parenthesised last expression, `({ a: 1 })`, starts
-    // before its expression node.
-    const body = js.slice(last.start, last.end).replace(/;\s*$/, '');
-    js = `${js.slice(0, last.start)}return (${body});${js.slice(last.end)}`;
+    // before its expression node. Outermost of all insertions (depth -1).
+    const end = /;\s*$/.test(js.slice(last.start, last.end)) ? js.lastIndexOf(';', last.end) : last.end;
+    insertions.push({ at: last.start, text: 'return (', closing: 0, depth: -1 }, { at: end, text: ')', closing: 1, depth: -1 });
   }
+  js = applyInsertions(js, insertions);
   let lines: ([number, number] | undefined)[] = [];
   try {
     lines = lineMap((JSON.parse(map) as { mappings: string }).mappings);
   } catch {
     lines = [];
   }
-  // One wrapper line precedes the code.
-  return { code: `(async () => {\n${js}\n})()`, lines: [undefined, ...lines] };
+  // One wrapper line precedes the code. The interrupt checks are bound per cell (CELL_HOOKS is set before each run).
+  return { code: `(async (${CHECK}, ${AFTER_AWAIT}) => {\n${js}\n})(${CELL_HOOKS}.check, ${CELL_HOOKS}.afterAwait)`, lines: [undefined, ...lines] };
 }
 
 function isMimeBundle(value: unknown): value is MimeBundle {
@@ -134,12 +145,54 @@ export async function runScript(source: string, context: vm.Context, env: Script
   context.display = (value: unknown) => {
     env.emit({ type: 'display_data', data: bundleFor(value), metadata: {}, displayId: env.nextDisplayId() });
   };
+  context.clearOutput = (wait?: unknown) => {
+    if (wait !== undefined && typeof wait !== 'boolean') throw new TypeError(`clearOutput(wait): wait must be true or false, got ${inspect(wait)}`);
+    env.emit({ type: 'clear_output', wait: wait === true });
+  };
+  const flag = env.cancelFlag;
+  // Once a cell was interrupted its code stays stopped: a promise chain it left behind cannot resume later.
+  let stopped = false;
+  const check = flag
+    ? () => {
+        if (stopped || Atomics.load(flag, 0) !== 0) {
+          stopped = true;
+          throw new CancelledError();
+        }
+      }
+    : () => {};
+  context[CELL_HOOKS] = {
+    check,
+    afterAwait: (value: unknown) => {
+      check();
+      return value;
+    },
+  };
   let value: unknown;
+  let watcher: NodeJS.Timeout | undefined;
   try {
     const script = new vm.Script(compiled.code, { filename: FILENAME });
-    value = await script.runInContext(context, { breakOnSigint: true });
+    const running = script.runInContext(context, { breakOnSigint: true }) as Promise<unknown>;
+    context[CELL_HOOKS] = undefined;
+    if (flag) {
+      // A cell awaiting something that never settles (or whose code was stopped inside a promise chain it did not
+      // await) ends when the flag is set, whoever sets it (the kernel's control handler or its control worker).
+      const interrupted = new Promise<never>((_resolve, reject) => {
+        watcher = setInterval(() => {
+          if (Atomics.load(flag, 0) !== 0) {
+            stopped = true;
+            reject(new CancelledError());
+          }
+        }, WATCH_INTERVAL_MS);
+      });
+      // The losing side must not surface later as an unhandled rejection.
+      running.catch(() => undefined);
+      value = await Promise.race([running, interrupted]);
+    } else value = await running;
   } catch (error) {
     throw scriptError(error, compiled, source);
+  } finally {
+    context[CELL_HOOKS] = undefined;
+    if (watcher) clearInterval(watcher);
   }
   env.task.finish();
   return value === undefined ? undefined : bundleFor(value);
@@ -147,7 +200,10 @@ export async function runScript(source: string, context: vm.Context, env: Script
 
 function scriptError(error: unknown, compiled: Compiled, source: string): CellError {
   if (error instanceof CellError) return error;
-  if (error instanceof CancelledError) return new CellError('CellInterrupted', 'interrupted: the script was stopped at task.checkpoint()');
+  if (error instanceof CancelledError) return new CellError('CellInterrupted', 'interrupted: the script was stopped by the kernel interrupt');
+  if ((error as { code?: unknown } | null)?.code === 'ERR_SCRIPT_EXECUTION_INTERRUPTED') {
+    return new CellError('CellInterrupted', 'interrupted: the script was stopped by the kernel interrupt (SIGINT)');
+  }
   const e = error as { name?: unknown; message?: unknown; stack?: unknown };
   const name = typeof e?.name === 'string' ? e.name : 'Error';
   const message = typeof e?.message === 'string' ? e.message : String(error);

@@ -144,6 +144,7 @@ export function createCellSession(options: CellSessionOptions = {}): MultipletSe
             task: createProgressTask('script', nextDisplayId('progress'), execOptions.emit, execOptions.cancelFlag),
             emit: execOptions.emit,
             nextDisplayId: () => nextDisplayId('display'),
+            ...(execOptions.cancelFlag ? { cancelFlag: execOptions.cancelFlag } : {}),
           });
           return value ? { status: 'ok', result: { data: value, metadata: {} } } : { status: 'ok' };
         }
