@@ -99,6 +99,8 @@ const INVENTED = 'Invented data for the Multiplet demo: compound QX-7 is fiction
 // ---------------------------------------------------------------------------------------------------------------
 // Inelastic neutron scattering: spectra at two incident energies and two temperatures, and a peak list.
 const cef = solveCef(ion, TRUTH.cefMeV);
+const groundDoublet = cef.groundDoublet;
+if (!groundDoublet) throw new RangeError('generate-data: the hidden crystal field must give a ground doublet');
 const levels = levelStrengths(ion, TRUTH.cefMeV);
 const peakRows: number[][] = [];
 for (const run of TRUTH.neutron.runs) {
@@ -236,7 +238,7 @@ csv(
 const cpTemperatures = logGrid(0.35, 30, 40);
 const diffuseTemperatures = TRUTH.diffuse.temperaturesK;
 const mcTemperatures = [...new Set([...cpTemperatures, ...diffuseTemperatures, TRUTH.diffuse.referenceTemperatureK])].sort((a, b) => a - b);
-const momentMuB = cef.groundDoublet.momentParallelMuB;
+const momentMuB = groundDoublet.momentParallelMuB;
 const mc = runSpinIceMonteCarlo({
   model: { L: TRUTH.monteCarlo.L, latticeConstantAngstrom: TRUTH.compound.latticeConstantAngstrom, momentMuB, exchangeK: TRUTH.exchangeK, dipolar: true },
   temperaturesK: mcTemperatures,
@@ -316,8 +318,8 @@ const truthOut = {
   ...TRUTH,
   derived: {
     levelsMeV: cef.levels.map((l) => Number(l.energyMeV.toFixed(4))),
-    gParallel: Number(cef.groundDoublet.gParallel.toFixed(4)),
-    gPerpendicular: Number(cef.groundDoublet.gPerpendicular.toFixed(6)),
+    gParallel: Number(groundDoublet.gParallel.toFixed(4)),
+    gPerpendicular: Number(groundDoublet.gPerpendicular.toFixed(6)),
     momentParallelMuB: Number(momentMuB.toFixed(4)),
     dipolarDK: Number(mc.raw.couplings.dipolarDK.toFixed(5)),
     monteCarloTemperaturesK: mcTemperatures,
