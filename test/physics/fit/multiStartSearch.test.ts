@@ -34,6 +34,17 @@ describe('multiStartSearch', () => {
     expect(a.evaluations).toBe(b.evaluations);
   });
 
+  it('screening draws candidatesPerStart × starts points, keeps the best starts and counts their evaluations', () => {
+    const plain = multiStartSearch(fourWells, { lower: [-2, -2], upper: [2, 2], starts: 6, seed: 2 });
+    const screened = multiStartSearch(fourWells, { lower: [-2, -2], upper: [2, 2], starts: 6, seed: 2, candidatesPerStart: 10 });
+    expect(screened.startsRun).toBe(6);
+    expect(screened.best.chi2).toBeLessThanOrEqual(plain.best.chi2 + 1e-12);
+    // the six best of 60 screened points all lie in the best well's basin or close: more hits there than without
+    const hitsBest = (r: typeof plain) => r.minima.find((m) => m.fit.parameters[0] > 0 && m.fit.parameters[1] > 0)?.hits ?? 0;
+    expect(hitsBest(screened)).toBeGreaterThanOrEqual(hitsBest(plain));
+    expect(() => multiStartSearch(fourWells, { lower: [-2, -2], upper: [2, 2], starts: 2, candidatesPerStart: 0 })).toThrow(InputError);
+  });
+
   it('needs a finite box', () => {
     expect(() => multiStartSearch(fourWells, { lower: [-2, -Infinity], upper: [2, 2] })).toThrow(InputError);
     expect(() => multiStartSearch(fourWells, { lower: [2, -2], upper: [-2, 2] })).toThrow(InputError);

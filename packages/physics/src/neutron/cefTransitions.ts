@@ -95,6 +95,7 @@ export function levelStrengths(
     else groups.push([k]);
   }
   const levelEnergiesMeV = Float64Array.from(groups, (g) => g.reduce((s, k) => s + energiesMeV[k], 0) / g.length);
+  levelEnergiesMeV[0] = 0; // the reference: the ground level's round-off (1e-15 meV) is not an energy
   const { strengths } = transitionStrengths(ion.J, vectors, { qDirection: options.qDirection });
   const L = groups.length;
   const pairStrengths = new Float64Array(L * L);
