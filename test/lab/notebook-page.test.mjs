@@ -44,7 +44,7 @@ async function openNotebook(url) {
 }
 
 before(async () => {
-  lab = await startLab([join(repoRoot, 'test/lab/notebooks')]);
+  lab = await startLab([join(repoRoot, 'test/lab/notebooks'), join(repoRoot, 'notebooks-demo')]);
   browser = await openBrowser();
   page = await browser.context.newPage();
 });
@@ -258,6 +258,32 @@ test('dark theme: the result view follows it', async () => {
   const channels = (css) => (css.match(/\d+/g) ?? []).slice(0, 3).map(Number);
   assert.ok(channels(colours.label).every((c) => c > 128), `axis label colour ${colours.label}`);
   await shot('08-dark');
+});
+
+test('demo notebook 03 (magnetization and susceptibility): run all, no error output, plots rendered', async () => {
+  assert.ok(lab.pages['03-magnetization-susceptibility.ipynb'], `pages: ${Object.keys(lab.pages)}`);
+  await openNotebook(lab.pages['03-magnetization-susceptibility.ipynb']);
+  const codeCells = await page.evaluate(() => window.multipletPage.tracker.currentWidget.content.widgets.filter((c) => c.model.type === 'code').length);
+  await page.click('.jp-Toolbar-item >> text=Run All Cells');
+  await page.waitForFunction(
+    (count) => {
+      const cells = window.multipletPage.tracker.currentWidget.content.widgets.filter((c) => c.model.type === 'code');
+      return cells.length === count && cells.every((c) => typeof c.model.executionCount === 'number') && window.multipletPage.tracker.currentWidget.sessionContext.kernelDisplayStatus === 'idle';
+    },
+    codeCells,
+    { timeout: 300_000 },
+  );
+  assert.equal(await page.locator(errorOutputs).count(), 0, 'no error outputs');
+  await page.waitForSelector('.jp-Multiplet-result[data-kind="crystal-field"] figure.jp-Multiplet-plot[data-rendered="true"] svg');
+  // The script cells' vega-lite plots (M(B) and χ(T) with the data) through JupyterLab's vega renderer.
+  const vegaPlots = '.jp-RenderedVegaCommon5 canvas, .jp-RenderedVegaCommon5 svg';
+  await page.waitForSelector(vegaPlots, { state: 'attached', timeout: 60_000 });
+  const scriptPlots = await page.locator(vegaPlots).count();
+  assert.ok(scriptPlots >= 2, `script-cell plots rendered: ${scriptPlots}`);
+  await page.locator('.jp-Multiplet-result[data-kind="crystal-field"]').first().scrollIntoViewIfNeeded();
+  await shot('09-demo-03');
+  await page.locator('.jp-RenderedVegaCommon5').last().scrollIntoViewIfNeeded();
+  await shot('10-demo-03-script-plots');
 });
 
 test('no browser console errors on any page', () => {

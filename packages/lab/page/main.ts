@@ -1,5 +1,5 @@
 /**
- * The standalone Multiplet notebook page: a small JupyterFrontEnd (notebook, rendermime, services, a command
+ * The standalone Multiplet notebook page: a small JupyterFrontEnd (notebook, rendermime with vega, services, a command
  * palette) that loads the prebuilt Multiplet extension through module federation, then opens one notebook.
  * URL: /static/multiplet/index.html?token=…&path=notebook.ipynb[&theme=dark]
  */
@@ -28,6 +28,7 @@ import {
 } from '@jupyterlab/notebook';
 import { IRenderMimeRegistry, RenderMimeRegistry, standardRendererFactories } from '@jupyterlab/rendermime';
 import { ServerConnection, ServiceManager, type Event, type User } from '@jupyterlab/services';
+import { rendererFactory as vegaRendererFactory } from '@jupyterlab/vega5-extension';
 import { CommandRegistry } from '@lumino/commands';
 import { Signal, Stream } from '@lumino/signaling';
 import { CommandPalette, Widget } from '@lumino/widgets';
@@ -101,7 +102,10 @@ function notebookServices(serverSettings: ServerConnection.ISettings) {
   });
   const editorServices = new CodeMirrorEditorFactory({ extensions, languages });
   const mimeTypeService = new CodeMirrorMimeTypeService(languages);
+  // JupyterLab's standard renderers plus its vega/vega-lite one (script cells display vega-lite v5 plots), at the
+  // rank JupyterLab's vega5-extension gives it (ahead of image/png fallbacks in the same bundle).
   const rendermime = new RenderMimeRegistry({ initialFactories: standardRendererFactories, markdownParser: createMarkdownParser(languages) });
+  rendermime.addFactory(vegaRendererFactory, 57);
   const manager = new ServiceManager({ serverSettings, standby: 'never', events: quietEvents(serverSettings), user: localUser(serverSettings) });
   return { editorServices, mimeTypeService, rendermime, manager };
 }
