@@ -77,6 +77,19 @@ describe('[exchange] cell', () => {
     expect(r.data['text/plain']).toMatch(/scan of B40/);
   });
 
+  it('takes J_ex from the J1 of a Monte Carlo model: J_ex = J1/J² for a pure |±J⟩ doublet (J_nn = −J1/3 = J_zz/4)', async () => {
+    const session = createCellSession({ notebookDir: '.' });
+    await runOk(session, SAMPLE_CELL);
+    await runOk(session, DY_CEF);
+    await runOk(session, `[spin-ice-mc] mc\ntemperatures: [2 K]\nJ1: 3.2 K\nL: 1\nsweeps: 40\nthermalizationSweeps: 0\nsnapshots: 0\n`);
+    const r = await runOk(session, `[exchange] exMc\ncef: cefIsing\nfromMonteCarlo: mc\ndipolar: false\norder: 1\ntwoSiteCheck: false\n`);
+    const result = (r.data[MULTIPLET_MIME] as { result: Record<string, any> }).result;
+    expect(result.isotropicFromMonteCarlo).toEqual({ result: 'mc', J1K: 3.2 });
+    const K = 1.380649e-23 / 1.602176634e-22; // k_B in meV/K (CODATA 2018 exact values, from memory)
+    expect(result.isotropicMeV).toBeCloseTo((3.2 * K) / 56.25, 10);
+    expect(result.first.Jzz / 4 / K).toBeCloseTo(-3.2 / 3, 8);
+  });
+
   it('errors: a crystal field without a doublet ground state; isotropic together with thetaCW', async () => {
     const session = createCellSession({ notebookDir: '.' });
     await runOk(session, SAMPLE_CELL.replace('Dy3+', 'Pr3+'));

@@ -10,6 +10,7 @@ import {
   couplingsFromHamiltonian,
   curieWeissThetaK,
   exchangeScaleFromCurieWeiss,
+  isotropicExchangeFromIsingJ1,
   microscopicCouplingMatrix,
   effectiveExchange,
 } from '@multiplet/physics/exchange';
@@ -66,5 +67,19 @@ describe('exchangeScaleFromCurieWeiss', () => {
     const r = exchangeScaleFromCurieWeiss(theta, site, a, { dipolar: true });
     expect(r.isotropicMeV).toBeCloseTo(jEx, 12);
     expect(r.thetaFixedK).toBeGreaterThan(0); // nearest-neighbour dipolar spin ice is ferromagnetic
+  });
+});
+
+describe('isotropicExchangeFromIsingJ1', () => {
+  it('pure |±J⟩ doublet: J_ex = J1/J² (Ising J_nn = −J1/3 and J_zz/4 = J_nn; derivation in isingCouplingMap.ts)', () => {
+    const dy = getIon('Dy3+');
+    const site = pseudospinSiteFromParameters(dy, { B20: -0.1 });
+    const j1K = 3.2;
+    const r = isotropicExchangeFromIsingJ1(j1K, site, 10.12);
+    expect(r.isotropicMeV).toBeCloseTo((j1K * KELVIN_IN_MEV) / 7.5 ** 2, 14);
+    // and back: the first-order J_zz of that J_ex is −4 J1/3
+    const bond = pyrochloreBond(10.12);
+    const c = effectiveExchange(site, site, bond, microscopicCouplingMatrix({ isotropicMeV: r.isotropicMeV }, bond, dy.gJ, dy.gJ), { order: 1, twoSiteCheck: false }).first;
+    expect(c.Jzz / 4 / KELVIN_IN_MEV).toBeCloseTo(-j1K / 3, 12);
   });
 });

@@ -27,6 +27,7 @@ import {
   scaledCoupling,
   curieWeissThetaK,
   exchangeScaleFromCurieWeiss,
+  isotropicExchangeFromIsingJ1,
   furtherNeighbourExchange,
   type MediatedCoupling,
   type ExchangeScanRow,
@@ -45,6 +46,7 @@ interface ExchangeInput {
   matrix?: number[][];
   dipolar: boolean;
   thetaCW?: number;
+  fromMonteCarlo?: string;
   order: number;
   twoSiteCheck: boolean;
   cefScale?: number[];
@@ -68,6 +70,8 @@ export interface ExchangeResult {
   /** J_ex used, meV (from the cell or from thetaCW); null when none. */
   isotropicMeV: number | null;
   isotropicFromThetaCW: { thetaCWK: number; thetaFixedK: number; thetaPerMeVK: number } | null;
+  /** J_ex taken from the J1 of a Monte Carlo model (mc-fit or spin-ice-mc result), or null. */
+  isotropicFromMonteCarlo: { result: string; J1K: number } | null;
   dipolar: boolean;
   order: number;
   first: Couplings;
@@ -155,6 +159,11 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       unit: 'K',
       doc: 'A measured Curie–Weiss temperature of the ground doublets: J_ex is chosen so that the mean-field θ of the first-order model equals it (instead of giving isotropic).',
     },
+    fromMonteCarlo: {
+      type: 'reference',
+      kinds: ['mc-fit', 'spin-ice-mc'],
+      doc: 'Take J_ex from the nearest-neighbour J1 of a Monte Carlo model (H = Σ J1 S_i·S_j with unit Ising vectors, dipolar separate): J_ex is chosen so that the first-order J_zz/4 equals J_nn = −J1/3 (instead of giving isotropic).',
+    },
     order: { type: 'integer', min: 1, max: 2, default: 2, doc: 'Perturbation order: 1 (projection) or 2 (with virtual CEF excitations).' },
     twoSiteCheck: { type: 'boolean', default: true, doc: 'Compare with the exact diagonalisation of the two-ion Hamiltonian.' },
     cefScale: {
@@ -193,7 +202,9 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       ctx.fail('furtherNeighbours', true, 'isotropic and/or dipolar couplings only (a bond matrix is not mapped to the other bonds)');
     if (input.thetaCW !== undefined && input.isotropic !== undefined)
       ctx.fail('thetaCW', input.thetaCW, 'either thetaCW or isotropic, not both (thetaCW determines the isotropic exchange)');
-    if (input.isotropic === undefined && input.matrix === undefined && !input.dipolar && input.thetaCW === undefined)
+    if (input.fromMonteCarlo !== undefined && (input.isotropic !== undefined || input.thetaCW !== undefined))
+      ctx.fail('fromMonteCarlo', input.fromMonteCarlo, 'only one source of the isotropic exchange: isotropic, thetaCW or fromMonteCarlo');
+    if (input.isotropic === undefined && input.matrix === undefined && !input.dipolar && input.thetaCW === undefined && input.fromMonteCarlo === undefined)
       ctx.fail('isotropic', undefined, 'a coupling: isotropic, matrix, dipolar: true or thetaCW');
     if (input.bond[0] === input.bond[1]) ctx.fail('bond', input.bond, 'two different sublattices');
     if (input.scanParameter !== undefined) {
@@ -218,6 +229,14 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       const est = exchangeScaleFromCurieWeiss(input.thetaCW, site, a!, { matrixMeV: input.matrix, dipolar: input.dipolar });
       isotropic = est.isotropicMeV;
       fromTheta = { thetaCWK: input.thetaCW, thetaFixedK: est.thetaFixedK, thetaPerMeVK: est.thetaPerMeVK };
+    }
+    let fromMc: ExchangeResult['isotropicFromMonteCarlo'] = null;
+    if (input.fromMonteCarlo !== undefined) {
+      const mc = ctx.result<{ model?: { exchangeK?: Record<string, number> } }>(input.fromMonteCarlo);
+      const j1 = mc.model?.exchangeK?.J1;
+      if (typeof j1 !== 'number') ctx.fail('fromMonteCarlo', input.fromMonteCarlo, 'a Monte Carlo result with a model J1');
+      isotropic = isotropicExchangeFromIsingJ1(j1!, site, a!).isotropicMeV;
+      fromMc = { result: input.fromMonteCarlo, J1K: j1! };
     }
     const spec = { isotropicMeV: isotropic, matrixMeV: input.matrix, dipolar: input.dipolar };
     const k = microscopicCouplingMatrix(spec, bond, ion.gJ, ion.gJ, 'coupling');
@@ -266,6 +285,7 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       gLocal: site.gLocal,
       isotropicMeV: isotropic ?? null,
       isotropicFromThetaCW: fromTheta,
+      isotropicFromMonteCarlo: fromMc,
       dipolar: input.dipolar,
       order,
       first: pick(r.first),
@@ -294,7 +314,7 @@ export const exchangeKind = defineKind<ExchangeInput, ExchangeResult>({
       ['ion, doublet', `${r.ion} (${r.kramers ? 'Kramers' : 'non-Kramers'}, ${r.doubletKind} transverse components)`],
       ['bond', r.bond],
       ['CEF gap', r.gapMeV === null ? '—' : `${formatNumber(r.gapMeV)} meV`],
-      ['J_ex', r.isotropicMeV === null ? '—' : `${formatNumber(r.isotropicMeV)} meV${r.isotropicFromThetaCW ? ` (from θ_CW = ${formatNumber(r.isotropicFromThetaCW.thetaCWK)} K, mean field)` : ''}`],
+      ['J_ex', r.isotropicMeV === null ? '—' : `${formatNumber(r.isotropicMeV)} meV${r.isotropicFromThetaCW ? ` (from θ_CW = ${formatNumber(r.isotropicFromThetaCW.thetaCWK)} K, mean field)` : ''}${r.isotropicFromMonteCarlo ? ` (from J1 = ${formatNumber(r.isotropicFromMonteCarlo.J1K)} K of ${r.isotropicFromMonteCarlo.result})` : ''}`],
       ['dipolar', r.dipolar ? 'yes (this bond only)' : 'no'],
       ['J_±/J_zz, J_±±/J_zz, J_z±/J_zz', `${ratio(r.ratios.JpmOverJzz)}, ${ratio(r.ratios.JpmpmOverJzz)}, ${ratio(r.ratios.JzpmOverJzz)}`],
       ['two-site check', r.twoSiteCheckMeV === null ? 'not run' : `max |exact − effective| = ${formatNumber(r.twoSiteCheckMeV, 3)} meV`],

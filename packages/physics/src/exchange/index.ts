@@ -14,3 +14,4 @@ export * from './exchangeScan';
 export * from './curieWeiss';
 export * from './multiSite';
 export * from './furtherNeighbourExchange';
+export * from './isingCouplingMap';
