@@ -77,6 +77,22 @@ describe('fitCef on peak lists', () => {
     expect(() => fitCef({ ion: 'Er3+', symmetry: 'D3d', start: START, peaks: syntheticPeaks() }, { starts: 8, seed: 1, task: cancelling })).toThrow(CancelledError);
   });
 
+  it('cubic sites keep B44 = 5 B40 and B64 = −21 B60 while fitting B40 and B60 (Yb3+ in Oh: Γ6, Γ7, Γ8)', () => {
+    const t = cefTransitions('Yb3+', { B40: 0.02, B60: 2e-4, B44: 0.1, B64: -4.2e-3 }, 150);
+    expect(t.levels.map((l) => l.degeneracy).sort()).toEqual([2, 2, 4]);
+    const maxWeight = Math.max(...t.transitions.map((x) => x.weight));
+    const peaks = t.transitions
+      .filter((x) => x.energyMeV > 0 && x.weight > 1e-3 * maxWeight)
+      .map((x) => ({ energyMeV: x.energyMeV, errorMeV: 0.05, temperatureK: 150 }));
+    expect(peaks.length).toBeGreaterThanOrEqual(2);
+    const report = fitCef({ ion: 'Yb3+', symmetry: 'Oh', start: { B40: 0.018, B60: 2.3e-4 }, peaks });
+    expect(report.best.freeKeys).toEqual(['B40', 'B60']);
+    expect(report.best.chi2).toBeLessThan(1e-8);
+    expect(report.best.parametersMeV.B44 / report.best.parametersMeV.B40).toBeCloseTo(5, 12);
+    expect(report.best.parametersMeV.B64 / report.best.parametersMeV.B60).toBeCloseTo(-21, 12);
+    expect(() => fitCef({ ion: 'Yb3+', symmetry: 'Oh', start: { B40: 0.015 }, free: ['B44'], peaks })).toThrow(/tied/);
+  });
+
   it('gives clear InputErrors for bad input', () => {
     const peaks = syntheticPeaks();
     const base = { ion: 'Er3+', symmetry: 'D3d', start: START, peaks };

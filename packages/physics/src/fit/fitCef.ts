@@ -154,7 +154,7 @@ export function describeCefSolution(model: CefFitModel, fit: LevenbergMarquardtR
  * largest observed energy (when there are peaks or spectra), then clipped to the box. Without this, most uniform
  * starts in the box put levels hundreds of meV away from the data and end in far local minima.
  */
-export function cefRandomStarts(model: CefFitModel, count: number, random: Random): number[][] {
+export function cefRandomStarts(model: CefFitModel, count: number, random: Random, task?: LongTask): number[][] {
   const targets = [
     ...model.peaks.map((p) => Math.abs(p.energyMeV)),
     ...model.spectra.map((sp) => 0.8 * Math.max(...sp.energiesMeV.map(Math.abs))),
@@ -164,6 +164,8 @@ export function cefRandomStarts(model: CefFitModel, count: number, random: Rando
   const nB = model.freeKeys.length;
   const starts: number[][] = [];
   for (let k = 0; k < count; k++) {
+    // One diagonalisation per start: thousands of starts take seconds, so an interrupt is checked here too.
+    if (k % 64 === 0) task?.checkpoint();
     const x = Array.from({ length: p }, (_, j) => model.lowerScaled[j] + random.nextDouble() * (model.upperScaled[j] - model.lowerScaled[j]));
     if (largest > 0) {
       const levels = levelStrengths(model.ion, model.parametersMeV(x)).levelEnergiesMeV;
@@ -185,7 +187,7 @@ export function fitCef(spec: CefFitSpec, options: FitCefOptions = {}): CefFitRep
   const starts = options.starts ?? 0;
   if (!Number.isInteger(starts) || starts < 0) throw new InputError('starts', starts, 'a non-negative integer');
   const random = createRandom(options.seed ?? 0);
-  const randomStarts = cefRandomStarts(model, starts, random);
+  const randomStarts = cefRandomStarts(model, starts, random, options.task);
   const search = multiStartSearch(problem, {
     lower: model.lowerScaled,
     upper: model.upperScaled,

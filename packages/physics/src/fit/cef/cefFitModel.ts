@@ -18,7 +18,7 @@
  */
 import { InputError } from '../../errors';
 import { getIon, type Ion } from '../../ions';
-import { allowedParameters, normalizeCefParameters, type CefParameters } from '../../cef';
+import { allowedParameters, CUBIC_SYMMETRIES, normalizeCefParameters, type CefParameters } from '../../cef';
 import { stevensOperator } from '../../cef/stevensOperator';
 import { parseParameterKey, parameterKey } from '../../cef/parameterKeys';
 import { EigenWorkspace, hermitianEigen } from '../../linalg/hermitianEigen';
@@ -168,6 +168,8 @@ export class CefFitModel {
   readonly fixed: Record<string, number>;
   /** ‖O_k‖ per free key. */
   readonly norms: Float64Array;
+  /** Parameters tied to another one by the site symmetry: key → [source key, factor] (cubic B44, B64). */
+  readonly ties: Record<string, [string, number]>;
   /** Index of the shared intrinsic width in the parameter vector (after the B's), or −1 when not fitted. */
   readonly widthIndex: number;
   /** Length of the parameter vector: free B's plus the width if fitted. */
@@ -195,8 +197,12 @@ export class CefFitModel {
     if (spec === null || typeof spec !== 'object') throw new InputError('spec', spec, 'a fit specification object');
     this.ion = typeof spec.ion === 'string' ? getIon(spec.ion) : spec.ion;
     if (typeof spec.symmetry !== 'string') throw new InputError('symmetry', spec.symmetry, 'a site symmetry such as D3d');
-    const allowed = allowedParameters(spec.symmetry);
+    const allowedAll = allowedParameters(spec.symmetry);
     this.symmetry = spec.symmetry;
+    // Cubic sites: B44 = 5 B40 and B64 = −21 B60 (Hutchings 1964 eq. 6.2) are tied, not free.
+    const cubic = CUBIC_SYMMETRIES.some((c) => c.toLowerCase() === String(spec.symmetry).trim().toLowerCase());
+    this.ties = cubic ? { B44: ['B40', 5], B64: ['B60', -21] } : {};
+    const allowed = allowedAll.filter((key) => !(key in this.ties));
     const start = normalizeCefParameters((spec.start ?? {}) as Record<string, unknown>, { symmetry: spec.symmetry, field: 'start' });
     // Default: every parameter the symmetry allows that acts on this J (rank n ≤ 2J).
     const defaultFree = allowed.filter((key) => parseParameterKey(key)!.n <= 2 * this.ion.J);
@@ -204,6 +210,8 @@ export class CefFitModel {
       const index = typeof key === 'string' ? parseParameterKey(key) : undefined;
       if (!index) throw new InputError(`free[${k}]`, key, 'a Stevens parameter name such as B20 or B43');
       const canonical = parameterKey(index.n, index.m);
+      if (canonical in this.ties)
+        throw new InputError(`free[${k}]`, key, `a free parameter of ${spec.symmetry} symmetry (${canonical} is tied: ${canonical} = ${this.ties[canonical][1]}·${this.ties[canonical][0]})`);
       if (!allowed.includes(canonical))
         throw new InputError(`free[${k}]`, key, `a parameter allowed by ${spec.symmetry} site symmetry (${allowed.join(', ')})`);
       return canonical;
@@ -384,6 +392,7 @@ export class CefFitModel {
   parametersMeV(x: ArrayLike<number>): Record<string, number> {
     const out: Record<string, number> = { ...this.fixed };
     this.freeKeys.forEach((key, k) => (out[key] = x[k] / this.norms[k]));
+    for (const [key, [source, factor]] of Object.entries(this.ties)) if (out[source] !== undefined) out[key] = factor * out[source];
     return out;
   }
 
