@@ -7,6 +7,7 @@ import type { NotebookPanel } from '@jupyterlab/notebook';
 import type { CommandRegistry } from '@lumino/commands';
 import { Widget } from '@lumino/widgets';
 import { CommandIDs } from './commandIds';
+import { levelsIcon } from './icons';
 import { findResultCell, type NotebookLinks, type SessionLink } from './links';
 import type { StateSnapshot } from './protocol';
 
@@ -17,6 +18,7 @@ export class SampleStatePanel extends Widget {
     this._commands = commands;
     this.id = 'jp-Multiplet-statePanel';
     this.title.label = 'Sample state';
+    this.title.icon = levelsIcon;
     this.title.caption = 'Multiplet: the shared sample state of the current notebook';
     this.addClass('jp-Multiplet-statePanel');
     this.node.setAttribute('role', 'region');
