@@ -7,7 +7,6 @@ import { describe, it, expect } from 'vitest';
 import * as math from 'mathjs';
 import {
   hermitianEigen,
-  hermitianEigenBatch,
   zeros,
   identity,
   multiply,
@@ -319,26 +318,6 @@ describe('hermitianEigen: exact cases and invariants', () => {
     const copy = { n: 5, re: Float64Array.from(a.re), im: Float64Array.from(a.im) };
     hermitianEigen(a);
     expect(maxDiff(a, copy)).toBe(0);
-  });
-});
-
-describe('hermitianEigenBatch', () => {
-  it('matches single solves for a mix of dimensions', () => {
-    const rng = createRandom(12);
-    const mats = [4, 16, 4, 3, 16].map((n) => randomHermitian(n, rng));
-    const batch = hermitianEigenBatch(mats);
-    mats.forEach((a, i) => {
-      const single = hermitianEigen(a);
-      expect(Array.from(batch[i].values)).toEqual(Array.from(single.values));
-      expect(maxDiff(batch[i].vectors, single.vectors)).toBe(0);
-    });
-    const valuesOnly = hermitianEigenBatch(mats, { vectors: false });
-    expect(valuesOnly[1].vectors).toBeNull();
-  });
-
-  it('names the offending matrix', () => {
-    const bad = fromArrays([[1, 2], [3, 1]]);
-    expect(() => hermitianEigenBatch([identity(2), bad])).toThrow(/matrices\[1\]/);
   });
 });
 
