@@ -19,3 +19,4 @@ export * from './reweightedHeatCapacity';
 export * from './spinIceRunData';
 export * from './runSpinIceMonteCarloAsync';
 export * from './fitHeatCapacity';
+export * from './rowUpdateKernel';

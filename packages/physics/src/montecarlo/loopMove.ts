@@ -110,7 +110,8 @@ export function loopMove(c: SpinIceCouplings, r: ReplicaState, betaPerK: number)
     const i = path[a];
     const twoS = -2 * s[i];
     s[i] = -s[i];
-    if (c.dense) {
+    if (r.kernel) r.kernel.addRow(r.kernelIndex, i, twoS);
+    else if (c.dense) {
       const J = c.dense;
       const row = i * N;
       for (let j = 0; j < N; j++) F[j] += twoS * J[row + j];

@@ -4,6 +4,7 @@
  */
 import type { SpinIceCouplings } from './spinIceCouplings';
 import type { Random } from '../random';
+import type { RowUpdateKernel } from './rowUpdateKernel';
 
 /** State of one replica. fields[i] = Σ_j J_ij σ_j − b_i (K), so flipping i costs ΔE = −2 σ_i fields[i]. */
 export interface ReplicaState {
@@ -18,21 +19,31 @@ export interface ReplicaState {
   pathSpins: Int32Array;
   /** Per-site stamps marking the current loop. */
   siteStamp: Int32Array;
+  /** WebAssembly row update over the dense matrix, when the fields live in its memory (index `kernelIndex`). */
+  kernel: RowUpdateKernel | null;
+  kernelIndex: number;
 }
 
 /**
- * A replica with random initial spins drawn from `random` (which it keeps for its own moves).
+ * A replica with random initial spins drawn from `random` (which it keeps for its own moves). With a
+ * `kernel` (whose matrix must be `c.dense`), the fields live in the kernel's memory at `kernelIndex`.
  * @example const r = createReplica(couplings, createRandom(1).fork())
  * See also: metropolisSweep, loopMove
  */
-export function createReplica(c: SpinIceCouplings, random: Random, initialSpins?: Int8Array): ReplicaState {
+export function createReplica(
+  c: SpinIceCouplings,
+  random: Random,
+  initialSpins?: Int8Array,
+  kernel: RowUpdateKernel | null = null,
+  kernelIndex = 0,
+): ReplicaState {
   const N = c.numberOfSites;
   const spins = new Int8Array(N);
   for (let i = 0; i < N; i++) spins[i] = initialSpins ? initialSpins[i] : random.next() < 0.5 ? -1 : 1;
   const nT = c.cell.numberOfTetrahedra;
   const r: ReplicaState = {
     spins,
-    fieldsK: new Float64Array(N),
+    fieldsK: kernel ? kernel.fields(kernelIndex) : new Float64Array(N),
     energyK: 0,
     random,
     visitStamp: new Int32Array(nT),
@@ -40,6 +51,8 @@ export function createReplica(c: SpinIceCouplings, random: Random, initialSpins?
     stamp: 0,
     pathSpins: new Int32Array(nT + 1),
     siteStamp: new Int32Array(N),
+    kernel,
+    kernelIndex,
   };
   refreshReplica(c, r);
   return r;

@@ -87,14 +87,24 @@ function runInWorker(
   onProgress?: (done: number, total: number, phase?: string) => void,
 ): Promise<{ result: SpinIceRunResult; data: SpinIceRunData }> {
   return new Promise((resolve, reject) => {
+    if (Atomics.load(cancelFlag, 0) !== 0) {
+      reject(new CancelledError());
+      return;
+    }
     const worker = new w.Worker(w.url, { workerData: { options, cancelFlag: cancelFlag.buffer } });
     let settled = false;
     const finish = (fn: () => void) => {
       if (settled) return;
       settled = true;
+      clearInterval(poll);
       fn();
       void worker.terminate();
     };
+    // The worker reads the flag between steps only, and its set-up (the dipolar sums at L = 4) takes seconds: watch
+    // the flag here as well and end the worker at once, so that a cancel is prompt in every phase.
+    const poll = setInterval(() => {
+      if (Atomics.load(cancelFlag, 0) !== 0) finish(() => reject(new CancelledError()));
+    }, 25);
     worker.on('message', (m) => {
       if (m.type === 'progress') onProgress?.(m.done, m.total, m.phase);
       else if (m.type === 'result') finish(() => resolve({ result: m.result, data: m.data }));

@@ -7,6 +7,7 @@
  */
 import { spinIceCouplings, type SpinIceCouplings, type SpinIceModel } from './spinIceCouplings';
 import { createReplica, refreshReplica, type ReplicaState } from './replicaState';
+import { createRowUpdateKernel } from './rowUpdateKernel';
 import { metropolisSweep } from './metropolisSweep';
 import { loopMove } from './loopMove';
 import { orderParameter001 } from './orderParameter001';
@@ -104,7 +105,10 @@ export function createSpinIceSimulation(options: SpinIceRunOptions): SpinIceSimu
   const slotBeta = slotTemp.map((x) => 1 / x.t);
   const rng: Random = createRandom(options.seed);
   const replicas: ReplicaState[] = [];
-  for (let k = 0; k < nT; k++) replicas.push(createReplica(c, rng.fork(), options.initialSpins));
+  // Dense (dipolar) case: matrix and fields in one WebAssembly memory for the SIMD row update (same numbers).
+  const kernel = c.dense ? createRowUpdateKernel(c.dense, N, nT) ?? null : null;
+  if (kernel) c.dense = kernel.matrix;
+  for (let k = 0; k < nT; k++) replicas.push(createReplica(c, rng.fork(), options.initialSpins, kernel, k));
   const replicaAtSlot = Int32Array.from({ length: nT }, (_, k) => k);
   const M = options.sweeps;
   // Series grow by doubling, so that a long run that is cancelled early never allocated its full length.
