@@ -72,23 +72,31 @@ export async function labCommand(args: string[]): Promise<number> {
     process.stderr.write('multiplet lab: the CLI bundle is missing; run `npm run build`\n');
     return 1;
   }
-  const server = await startLabServer({
-    repoRoot: root,
-    cliPath,
-    notebooks,
-    port,
-    token,
-    onOutput: process.env.MULTIPLET_LAB_VERBOSE ? (text) => process.stderr.write(text) : undefined,
-  });
+  // Ctrl+C (or SIGTERM) at any time, start-up included, stops the server and removes its temporary directory.
+  const stopRequested = new AbortController();
+  const onSignal = () => stopRequested.abort();
+  process.once('SIGINT', onSignal);
+  process.once('SIGTERM', onSignal);
+  let server;
+  try {
+    server = await startLabServer({
+      repoRoot: root,
+      cliPath,
+      notebooks,
+      port,
+      token,
+      signal: stopRequested.signal,
+      onOutput: process.env.MULTIPLET_LAB_VERBOSE ? (text) => process.stderr.write(text) : undefined,
+    });
+  } catch (err) {
+    if (stopRequested.signal.aborted) return 130;
+    throw err;
+  }
   process.stdout.write(`multiplet lab: jupyter_server on ${server.url} (root ${server.rootDir})\n`);
   if (server.notebooks.length === 0) process.stdout.write('multiplet lab: no notebooks found\n');
   for (const notebook of server.notebooks) process.stdout.write(`multiplet lab: ${server.pageUrl(notebook)}\n`);
   process.stdout.write('multiplet lab: Ctrl+C stops the server\n');
-  await new Promise<void>((resolveStop) => {
-    const onSignal = () => resolveStop();
-    process.once('SIGINT', onSignal);
-    process.once('SIGTERM', onSignal);
-  });
+  if (!stopRequested.signal.aborted) await new Promise((resolveStop) => stopRequested.signal.addEventListener('abort', resolveStop, { once: true }));
   await server.stop();
   return 0;
 }

@@ -25,8 +25,10 @@ export interface LabServerOptions {
   token?: string;
   /** Keep the server's files here instead of a new temporary directory. */
   workDir?: string;
-  /** Where the server's output goes (default: a log file in the work directory is not kept; inherit stderr). */
+  /** Receives the server's output (default: dropped). */
   onOutput?: (text: string) => void;
+  /** Aborting while the server starts stops it and removes the work directory (Ctrl+C during start-up). */
+  signal?: AbortSignal;
 }
 
 export interface LabServer {
@@ -63,10 +65,11 @@ function collectNotebooks(paths: string[]): string[] {
   return found;
 }
 
-async function waitForServer(url: string, token: string, child: ChildProcess, timeoutMs: number): Promise<void> {
+async function waitForServer(url: string, token: string, child: ChildProcess, timeoutMs: number, signal?: AbortSignal): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   let lastProblem = '';
   while (Date.now() < deadline) {
+    if (signal?.aborted) throw new Error('stopped while jupyter_server was starting');
     if (child.exitCode !== null) throw new Error(`jupyter_server exited with code ${child.exitCode}${lastProblem ? ` (${lastProblem})` : ''}`);
     try {
       const response = await fetch(`${url}api/status`, { headers: { Authorization: `token ${token}` } });
@@ -137,7 +140,7 @@ export async function startLabServer(options: LabServerOptions): Promise<LabServ
     if (ownsWorkDir) rmSync(workDir, { recursive: true, force: true });
   };
   try {
-    await waitForServer(url, token, child, 60_000);
+    await waitForServer(url, token, child, 60_000, options.signal);
   } catch (err) {
     await stop();
     throw err;
