@@ -610,62 +610,72 @@ and check the finite-size dependence.`,
     {
       md: `## Fit of J1 to C_mag(T)
 
-We scan J1 over four values with J2 = J3 = 0 (the heat capacity alone cannot separate the small further-neighbour
-terms), compute χ² between the measured C_mag per Dy (0.35–8 K) and the Monte Carlo C (with its own statistical error),
-and take the minimum and its 1σ error from a parabola through χ²(J1). The dipolar D = (μ0/4π) μ²/r_nn³ follows from μ
-and a. **What to look at:** the peak position of C (set by J_eff = J_nn + D_nn, with J_nn = −J1/3 and D_nn = 5D/3 in the
-usual nearest-neighbour language) and its height.`,
+The \`[mc-fit]\` cell fits J1 to the magnetic heat capacity per Dy between 0.5 and 8 K (below 0.5 K the nuclear
+term dominates the measured C and real spin ices fall out of equilibrium), with J2 = J3 = 0 (the heat capacity alone
+cannot separate the small further-neighbour terms). Each iteration runs one Monte Carlo simulation and
+moves J1 by reweighting the recorded histograms (multi-histogram reweighting in T and in the couplings), within a trust
+box; four simulations are enough here. The moment is g∥/2 = 9.92 μB from the crystal field of notebook 2, and the
+dipolar D = (μ0/4π) μ²/r_nn³ follows from it and a. The reduction result carries no error bars, so the fit uses its
+default σ = 3 % of C + 0.01 J/(mol K). **What to look at:** the peak position of C (set by J_eff = J_nn + D_nn, with
+J_nn = −J1/3 and D_nn = 5D/3 in the usual nearest-neighbour language) and its height.`,
+    },
+    {
+      id: 'mc-fit-cell',
+      code: `[mc-fit] mcFit
+data: cpMag
+range: [0.5 K, 8 K]
+free: [J1]
+J1: 3 K
+dipolar: true
+moment: 9.92
+L: 2
+sweeps: 1500
+simulationTemperatures: 0.3 K .. 10 K / 20 log
+maxSimulations: 4
+seed: 600`,
     },
     {
       id: 'mc-fit',
       code: `const show = (o) => ({ 'application/json': o, 'text/plain': JSON.stringify(o, null, 1) });
-const r = state.results.cpMag;
-const dC = state.datasets.cp.columns.find((c) => c.name === 'dC').values;
-const pick = r.temperaturesK.map((t, i) => i).filter((i) => r.temperaturesK[i] <= 8);
-const T = pick.map((i) => r.temperaturesK[i]);
-const C = pick.map((i) => r.magneticJPerMolIonK[i]);
-const sigma = pick.map((i) => dC[i] / (1 - 0.05) / 2);
-const momentMuB = state.results.cef.groundDoublet.momentParallelMuB;
-const a = state.sample.latticeConstantAngstrom;
-const model = (J1) => ({ L: 2, latticeConstantAngstrom: a, momentMuB, exchangeK: { J1 }, dipolar: true });
-const scan = [2.4, 2.8, 3.2, 3.6].map((J1, k) => {
-  const run = physics.montecarlo.runSpinIceMonteCarlo({ model: model(J1), temperaturesK: T, sweeps: 1200, seed: 600 + k }, task);
-  const c = run.result.heatCapacityJPerMolK, e = run.result.heatCapacityErrorJPerMolK;
-  const chi2 = C.reduce((s, x, i) => s + (x - c[i]) ** 2 / (sigma[i] ** 2 + e[i] ** 2), 0);
-  return { J1, chi2, c, D: run.raw.couplings.dipolarDK };
-});
-// Parabola χ² = p0 + p1 J + p2 J² through the scan (least squares), minimum and Δχ² = 1 error (scaled by χ²_red if > 1).
-const n = scan.length, Sx = [0, 0, 0, 0, 0], Sy = [0, 0, 0];
-scan.forEach(({ J1, chi2 }) => { for (let p = 0; p < 5; p++) Sx[p] += J1 ** p; for (let p = 0; p < 3; p++) Sy[p] += chi2 * J1 ** p; });
-const M = [[Sx[0], Sx[1], Sx[2]], [Sx[1], Sx[2], Sx[3]], [Sx[2], Sx[3], Sx[4]]];
-const det = (m) => m[0][0] * (m[1][1] * m[2][2] - m[1][2] * m[2][1]) - m[0][1] * (m[1][0] * m[2][2] - m[1][2] * m[2][0]) + m[0][2] * (m[1][0] * m[2][1] - m[1][1] * m[2][0]);
-const solve = (k) => det(M.map((row, i) => row.map((v, j) => (j === k ? Sy[i] : v)))) / det(M);
-const p1 = solve(1), p2 = solve(2), p0 = solve(0);
-const J1 = -p1 / (2 * p2);
-const chi2min = p0 + p1 * J1 + p2 * J1 * J1;
-const dof = T.length - 1;
-const J1Error = Math.sqrt(1 / p2) * Math.sqrt(Math.max(1, chi2min / dof));
-const best = scan.reduce((x, y) => (y.chi2 < x.chi2 ? y : x));
-const values = T.flatMap((t, i) => [{ T: t, C: C[i], what: 'data (C_mag per Dy)' }, ...scan.map((s) => ({ T: t, C: s.c[i], what: 'MC, J1 = ' + s.J1 + ' K' }))]);
-display({ 'application/vnd.vegalite.v5+json': {
-  $schema: 'https://vega.github.io/schema/vega-lite/v5.json', width: 460, height: 280, data: { values },
-  layer: [
-    { transform: [{ filter: "datum.what === 'data (C_mag per Dy)'" }], mark: { type: 'point', filled: true, color: '#222' },
-      encoding: { x: { field: 'T', type: 'quantitative', title: 'T (K)', scale: { type: 'log' } }, y: { field: 'C', type: 'quantitative', title: 'C_mag (J/mol/K per Dy)' } } },
-    { transform: [{ filter: "datum.what !== 'data (C_mag per Dy)'" }], mark: 'line',
-      encoding: { x: { field: 'T', type: 'quantitative' }, y: { field: 'C', type: 'quantitative' }, color: { field: 'what', type: 'nominal', title: null } } } ] } });
-display(scan.map((s) => ({ 'J1 (K)': s.J1, 'χ²': s.chi2.toFixed(1), 'χ²_red': (s.chi2 / dof).toFixed(2) })));
-show({ J1K: Number(J1.toFixed(3)), J1ErrorK: Number(J1Error.toFixed(3)), chi2ReducedAtMinimum: Number((chi2min / dof).toFixed(2)),
-  dipolarDK: Number(best.D.toFixed(4)), points: T.length, JeffK: Number((-J1 / 3 + (5 * best.D) / 3).toFixed(3)) })`,
+const r = state.results.mcFit;
+display(r.history.map((h, i) => ({ simulation: i + 1, 'J1 (K)': h.parametersK.J1.toFixed(3), 'χ²': h.chiSquare.toFixed(1) })));
+show({ J1K: Number(r.parametersK.J1.toFixed(3)), J1ErrorK: Number(r.uncertaintiesK.J1.toFixed(3)), chi2ReducedAtMinimum: Number(r.reducedChiSquare.toFixed(2)),
+  converged: r.converged, points: r.temperaturesK.length, momentMuB: r.model.momentMuB })`,
+    },
+    {
+      md: `**Reading the fit.** The error bar of J1 is statistical only (data and Monte Carlo noise, with the default 3 %
+errors). χ²_red above 1 says the model with J1 alone does not describe every detail: the further-neighbour couplings
+set to zero here shift the best J1 by an amount larger than its statistical error. Read J1 as an *effective*
+nearest-neighbour coupling of the model J2 = J3 = 0; freeing J2 and J3a with these data moves J1 by ~0.05 K and does
+not converge — they need other data (diffuse scattering of single crystals, the ordering at very low temperature).`,
     },
     {
       md: `## Diffuse scattering in absolute units
 
-A second run at the fitted J1 (3.2 K, rounded) keeps spin snapshots at 0.6, 1.2 and 3 K and at 20 K. Their pair correlations give the
-powder cross-section (Blech–Averbach average, barn/sr per Dy) and the model difference I(T) − I(20 K), the quantity
-measured. One overall scale is fitted to all three temperatures: since the data are already in absolute units, it
-should come out near 1; how far it is from 1 measures the absolute calibration of the neutron data. **What to look
-at:** the broad maximum near Q ≈ 1–1.2 Å⁻¹ growing on cooling and the depletion at low Q — the ice-rule correlations.`,
+A \`[spin-ice-mc]\` run from the fitted model (\`from: mcFit\`) keeps spin snapshots at 0.6, 1.2 and 3 K and at 20 K;
+the \`[structure-factor]\` cell turns their pair correlations into the powder cross-section (Blech–Averbach average,
+barn/sr per Dy) and the difference I(T) − I(20 K), the quantity measured. One overall scale is then fitted to all
+three temperatures: since the data are already in absolute units, it should come out near 1; how far it is from 1
+measures the absolute calibration of the neutron data. **What to look at:** the difference grows on cooling, with a
+broad maximum near Q ≈ 0.6 Å⁻¹ and a minimum near 2 Å⁻¹ — the short-range ice-rule correlations building up. With
+L = 2 the correlations are followed only to half the box (~10 Å), so structure below ~0.6 Å⁻¹ is not resolved by
+this model.`,
+    },
+    {
+      id: 'mc-run',
+      code: `[spin-ice-mc] mc
+from: mcFit
+temperatures: [0.6 K, 1.2 K, 3 K, 20 K]
+sweeps: 1600
+snapshots: 80
+seed: 77`,
+    },
+    {
+      id: 'structure-factor',
+      code: `[structure-factor] sq
+run: mc
+Q: 0.3 angstrom^-1 .. 3 angstrom^-1 / 55
+referenceTemperature: 20 K`,
     },
     {
       id: 'diffuse',
@@ -673,18 +683,14 @@ at:** the broad maximum near Q ≈ 1–1.2 Å⁻¹ growing on cooling and the de
 const col = (d, name) => d.columns.find((c) => c.name === name).values;
 const d = state.datasets.diffuse;
 const Q = col(d, 'Q');
+const sq = state.results.sq;
 const temps = [0.6, 1.2, 3.0];
 const names = temps.map((t) => String(t).replace('.', 'p') + 'K');
-const momentMuB = state.results.cef.groundDoublet.momentParallelMuB;
-// J1 from the fit above, rounded (script variables do not live across cells).
-const J1 = 3.2;
-const run = physics.montecarlo.runSpinIceMonteCarlo({ model: { L: 2, latticeConstantAngstrom: state.sample.latticeConstantAngstrom, momentMuB, exchangeK: { J1 }, dipolar: true },
-  temperaturesK: [...temps, 20], sweeps: 1600, seed: 77, snapshotEvery: 10 }, task);
-const pairs = physics.scattering.pairTable(run.raw.couplings.cell);
-const f = (q) => physics.neutron.magneticFormFactor('Dy3+', q);
-const I = (k) => physics.scattering.powderIntensity(physics.scattering.pairCorrelationShells(pairs, run.raw.snapshots[k]), Q, momentMuB, f).map((v) => 1000 * v);
-const ref = I(3);
-const models = temps.map((_, k) => I(k).map((v, i) => v - ref[i]));
+// The model differences in mbarn/sr per Dy, on the data's Q grid (the same 0.3 … 3 Å⁻¹ in steps of 0.05).
+const models = temps.map((t) => {
+  const k = sq.temperaturesK.findIndex((x) => Math.abs(x - t) < 1e-9);
+  return Q.map((q) => 1000 * sq.differenceBarnPerSrPerIon[k][sq.QInvAngstrom.findIndex((x) => Math.abs(x - q) < 1e-9)]);
+});
 let sxx = 0, sxy = 0;
 models.forEach((m, k) => { const y = col(d, 'dI_' + names[k]), e = col(d, 'err_' + names[k]); m.forEach((x, i) => { sxx += x * x / e[i] ** 2; sxy += x * y[i] / e[i] ** 2; }); });
 const scale = sxy / sxx, scaleError = 1 / Math.sqrt(sxx);
@@ -697,7 +703,7 @@ display({ 'application/vnd.vegalite.v5+json': {
       encoding: { x: { field: 'Q', type: 'quantitative', title: 'Q (Å⁻¹)' }, y: { field: 'I', type: 'quantitative', title: 'I(T) − I(20 K) (mbarn/sr per Dy)' }, color: { field: 'T', type: 'nominal' } } },
     { transform: [{ filter: "datum.what !== 'data'" }], mark: 'line',
       encoding: { x: { field: 'Q', type: 'quantitative' }, y: { field: 'I', type: 'quantitative' }, color: { field: 'T', type: 'nominal' } } } ] } });
-show({ J1K: J1, temperaturesK: temps, scale: Number(scale.toFixed(3)), scaleError: Number(scaleError.toFixed(3)), chi2Reduced: chi2Reduced.map((x) => Number(x.toFixed(2))) })`,
+show({ J1K: Number(state.results.mcFit.parametersK.J1.toFixed(3)), temperaturesK: temps, scale: Number(scale.toFixed(3)), scaleError: Number(scaleError.toFixed(3)), chi2Reduced: chi2Reduced.map((x) => Number(x.toFixed(2))) })`,
     },
     {
       md: `**Reading the result.** The model, with J1 from the heat capacity and no further adjustable parameter apart from
