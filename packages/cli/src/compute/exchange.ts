@@ -119,7 +119,7 @@ export const exchange: ComputeKind = {
       parametersMeV,
       bond: geometry.label,
       bondVectorAngstrom: geometry.bondVectorAngstrom,
-      gapMeV: site.gapMeV,
+      gapMeV: Number.isFinite(site.gapMeV) ? site.gapMeV : null,
       doubletKind: site.doubletKind,
       zReversed: site.zReversed,
       gLocal: site.gLocal,
