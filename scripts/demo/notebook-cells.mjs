@@ -614,7 +614,7 @@ The \`[mc-fit]\` cell fits J1 to the magnetic heat capacity per Dy between 0.5 a
 term dominates the measured C and real spin ices fall out of equilibrium), with J2 = J3 = 0 (the heat capacity alone
 cannot separate the small further-neighbour terms). Each iteration runs one Monte Carlo simulation and
 moves J1 by reweighting the recorded histograms (multi-histogram reweighting in T and in the couplings), within a trust
-box; four simulations are enough here. The moment is g∥/2 = 9.92 μB from the crystal field of notebook 2, and the
+box; four simulations are enough here. The moment is g∥/2 = 9.915 μB from the crystal field of notebook 2, and the
 dipolar D = (μ0/4π) μ²/r_nn³ follows from it and a. The reduction result carries no error bars, so the fit uses its
 default σ = 3 % of C + 0.01 J/(mol K). **What to look at:** the peak position of C (set by J_eff = J_nn + D_nn, with
 J_nn = −J1/3 and D_nn = 5D/3 in the usual nearest-neighbour language) and its height.`,
@@ -627,7 +627,7 @@ range: [0.5 K, 8 K]
 free: [J1]
 J1: 3 K
 dipolar: true
-moment: 9.92
+moment: 9.915
 L: 2
 sweeps: 1500
 simulationTemperatures: 0.3 K .. 10 K / 20 log
