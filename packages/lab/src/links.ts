@@ -39,9 +39,12 @@ export function cellHeader(source: string): { kind: string; name: string } | nul
   return match ? { kind: match[1], name: match[2] } : null;
 }
 
-/** Index of the notebook cell whose header names `result`, or -1. */
-export function findResultCell(panel: NotebookPanel, result: string): number {
-  return panel.content.widgets.findIndex((cell) => cell.model.type === 'code' && cellHeader(cell.model.sharedModel.getSource())?.name === result);
+/** Index of the notebook cell that made `result`: the cell with the kernel's cell id, else the one whose header names it; -1 if none. */
+export function findResultCell(panel: NotebookPanel, result: string, cellId?: string | null): number {
+  const cells = panel.content.widgets;
+  const byId = cellId ? cells.findIndex((cell) => cell.model.id === cellId) : -1;
+  if (byId >= 0) return byId;
+  return cells.findIndex((cell) => cell.model.type === 'code' && cellHeader(cell.model.sharedModel.getSource())?.name === result);
 }
 
 /** Result name of an output bundle of ours, or null. */
@@ -104,11 +107,11 @@ export class SessionLink implements IDisposable {
     return reply;
   }
 
-  /** The cell text the kernel last ran for `result` (control values included). */
-  async writebackSource(result: string): Promise<string> {
+  /** The cell text the kernel last ran for `result` (control values included), and the id of its cell if known. */
+  async writebackSource(result: string): Promise<{ source: string; cellId: string | null }> {
     const reply = await this._request(CONTROLS_COMM_TARGET, { action: 'writeback', result }, ['writeback']);
     if (typeof reply.source !== 'string') throw new Error(`the kernel sent no cell text for ${result}`);
-    return reply.source;
+    return { source: reply.source, cellId: typeof reply.cellId === 'string' ? reply.cellId : null };
   }
 
   /** Ask for a fresh snapshot of the sample state. */
@@ -276,10 +279,10 @@ export class NotebookLinks implements ControlChannel {
   async writeIntoCell(origin: HTMLElement, result: ResultPayload): Promise<void> {
     const panel = this.panelContaining(origin);
     if (!panel) throw new Error('this output is not inside an open notebook');
-    const source = await this.linkFor(panel).writebackSource(result.name);
-    // The cell holding this output; if it moved or was re-headed, the cell whose header names the result.
+    const { source, cellId } = await this.linkFor(panel).writebackSource(result.name);
+    // The cell holding this output; failing that, the cell the kernel names, or the one whose header names the result.
     const holder = panel.content.widgets.find((c) => c.node.contains(origin));
-    const index = holder ? panel.content.widgets.indexOf(holder) : findResultCell(panel, result.name);
+    const index = holder ? panel.content.widgets.indexOf(holder) : findResultCell(panel, result.name, cellId);
     const cell = index >= 0 ? panel.content.widgets[index] : undefined;
     if (!cell) throw new Error(`no cell of this notebook makes ${result.name}`);
     cell.model.sharedModel.setSource(source);

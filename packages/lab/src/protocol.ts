@@ -50,6 +50,8 @@ export interface StateResultEntry {
   stale: boolean;
   reads: string[];
   executionCount: number | null;
+  /** nbformat id of the notebook cell that last produced it, when the kernel knows it. */
+  cellId: string | null;
 }
 
 export interface StateDataset {
@@ -139,6 +141,7 @@ export function parseSnapshot(raw: unknown): StateSnapshot {
         stale: entry.stale === true,
         reads: asArray(entry.reads).map(String),
         executionCount: finite(entry.executionCount) ?? null,
+        cellId: typeof entry.cellId === 'string' && entry.cellId !== '' ? entry.cellId : null,
       };
     }),
   };

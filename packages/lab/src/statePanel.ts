@@ -126,7 +126,7 @@ export class SampleStatePanel extends Widget {
       kind.textContent = entry.kind;
       const origin = document.createElement('span');
       origin.className = 'jp-Multiplet-stateOrigin';
-      const index = findResultCell(this._panel, entry.name);
+      const index = findResultCell(this._panel, entry.name, entry.cellId);
       const count = entry.executionCount !== null ? ` [${entry.executionCount}]` : '';
       origin.textContent = index >= 0 ? `made by cell ${index + 1}${count}` : `made by a cell${count} not in this notebook`;
       if (entry.reads.length > 0) item.title = `reads ${entry.reads.join(', ')}`;
