@@ -70,3 +70,18 @@ describe('fitCef with a fitted intrinsic line width', () => {
     expect(report.best.degreesOfFreedom).toBe(2 * 121 - 7 - 4);
   });
 });
+
+describe('fitCef on a single-crystal spectrum', () => {
+  it('fits B20 and B43 back from a Q ∥ z spectrum, which differs from the powder one', () => {
+    const single = neutronSpectrum('Er3+', TRUTH, { ...common, temperatureK: 5, qDirection: [0, 0, 1] }).intensity;
+    const powder = clean[0].intensity;
+    expect(Math.max(...single.map((v, i) => Math.abs(v - powder[i])))).toBeGreaterThan(0.05 * Math.max(...powder));
+    const error = Array.from(single, (v) => 0.01 * v + 0.01);
+    const spectra: SpectrumObservation[] = [{ temperatureK: 5, ...common, qDirection: [0, 0, 1], intensity: Array.from(single), error }];
+    const start = { ...TRUTH, B20: -0.037, B43: -0.0104 };
+    const report = fitCef({ ion: 'Er3+', symmetry: 'D3d', start, free: ['B20', 'B43'], spectra });
+    expect(report.best.chi2).toBeLessThan(1e-6);
+    expect(report.best.parametersMeV.B20).toBeCloseTo(TRUTH.B20, 8);
+    expect(report.best.parametersMeV.B43).toBeCloseTo(TRUTH.B43, 8);
+  });
+});

@@ -26,6 +26,7 @@ interface PeakInput {
 interface SpectrumInput {
   data: string; energyColumn?: string; intensityColumn?: string; errorColumn?: string; temperature: number;
   incidentEnergy?: number; Q?: number; resolution: number[]; lineShape: 'gaussian' | 'lorentzian' | 'pseudo-voigt'; intrinsicWidth: number; weight: number;
+  qDirection?: number[];
 }
 interface CefFitInput {
   start: string;
@@ -148,6 +149,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
           lineShape: { type: 'choice', values: LINE_SHAPES, default: 'pseudo-voigt', doc: 'Line shape.' },
           intrinsicWidth: { type: 'quantity', unit: 'meV', min: 0, default: '0 meV', doc: 'Intrinsic Lorentzian FWHM.' },
           weight: { type: 'number', min: 0, default: 1, doc: 'Relative weight of this spectrum in χ².' },
+          qDirection: { type: 'list', of: { type: 'number', doc: 'Component in the CEF frame.' }, minItems: 3, maxItems: 3, doc: 'Single crystal: Q direction [x, y, z] in the CEF frame (default: powder).' },
         },
       },
     },
@@ -204,6 +206,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
         lineShape: s.lineShape,
         intrinsicFwhmMeV: s.intrinsicWidth,
         weight: s.weight,
+        qDirection: s.qDirection as [number, number, number] | undefined,
       };
     });
     const bounds = input.bounds ? Object.fromEntries(Object.entries(input.bounds).map(([k, v]) => [k, [v[0]!, v[1]!] as [number, number]])) : undefined;

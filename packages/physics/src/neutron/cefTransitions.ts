@@ -108,6 +108,25 @@ export function levelStrengths(
   return { ion, energiesMeV, eigenvectors: vectors, groups, levelEnergiesMeV, pairStrengths };
 }
 
+/**
+ * The same levels with the pair strengths for a single crystal with Q along `qDirection` (CEF frame), reusing the
+ * eigenvectors: no second diagonalisation.
+ * @example levelStrengthsAlong(levelStrengths(ion, B), [0, 0, 1])
+ */
+export function levelStrengthsAlong(levels: LevelStrengths, qDirection: readonly [number, number, number]): LevelStrengths {
+  const { strengths } = transitionStrengths(levels.ion.J, levels.eigenvectors, { qDirection });
+  const n = levels.energiesMeV.length;
+  const L = levels.groups.length;
+  const pairStrengths = new Float64Array(L * L);
+  for (let a = 0; a < L; a++)
+    for (let b = 0; b < L; b++) {
+      let s = 0;
+      for (const i of levels.groups[a]) for (const j of levels.groups[b]) s += strengths[j * n + i];
+      pairStrengths[b * L + a] = s;
+    }
+  return { ...levels, pairStrengths };
+}
+
 /** Boltzmann population per state of each level at T (K); T = 0 puts everything in the ground level. */
 export function levelPopulations(levels: LevelStrengths, temperatureK: number): Float64Array {
   const L = levels.groups.length;

@@ -9,6 +9,7 @@ export { transitionStrengths, type TransitionStrengths } from './transitionStren
 export {
   cefTransitions,
   levelStrengths,
+  levelStrengthsAlong,
   levelPopulations,
   thermalTransitions,
   type LevelStrengths,

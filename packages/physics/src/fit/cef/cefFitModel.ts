@@ -22,7 +22,7 @@ import { allowedParameters, CUBIC_SYMMETRIES, normalizeCefParameters, type CefPa
 import { stevensOperator } from '../../cef/stevensOperator';
 import { parseParameterKey, parameterKey } from '../../cef/parameterKeys';
 import { EigenWorkspace, hermitianEigen } from '../../linalg/hermitianEigen';
-import { levelPopulations, levelStrengths, type LevelStrengths } from '../../neutron/cefTransitions';
+import { levelPopulations, levelStrengths, levelStrengthsAlong, type LevelStrengths } from '../../neutron/cefTransitions';
 import { magneticFormFactor } from '../../neutron/magneticFormFactor';
 import { checkSpectrumOptions, spectrumFromTransitions, type NeutronSpectrumOptions } from '../../neutron/neutronSpectrum';
 import { thermalTransitions } from '../../neutron/cefTransitions';
@@ -55,6 +55,8 @@ export interface SpectrumObservation {
   readonly resolution?: { readonly fwhmPolynomialMeV: readonly number[] };
   readonly lineShape?: LineShapeKind;
   readonly intrinsicFwhmMeV?: number;
+  /** Single crystal: Q direction [x, y, z] in the CEF frame (default: powder average). */
+  readonly qDirection?: readonly [number, number, number];
   /** Relative weight of this dataset in χ² (default 1). */
   readonly weight?: number;
 }
@@ -290,6 +292,11 @@ export class CefFitModel {
       (s.error as readonly number[]).forEach((v: number, i: number) => finiteNumber(v, `${f}.error[${i}]`, 'a positive error', (e) => e > 0));
       if (s.weight !== undefined) finiteNumber(s.weight, `${f}.weight`, 'a positive weight', (v) => v > 0);
       if (s.lineShape !== undefined && !LINE_SHAPES.includes(s.lineShape)) throw new InputError(`${f}.lineShape`, s.lineShape, LINE_SHAPES.join(', '));
+      if (s.qDirection !== undefined) {
+        const q = s.qDirection as unknown;
+        if (!Array.isArray(q) || q.length !== 3 || !q.every((v) => typeof v === 'number' && Number.isFinite(v)) || Math.hypot(...(q as number[])) === 0)
+          throw new InputError(`${f}.qDirection`, q, 'a non-zero [x, y, z] in the CEF frame');
+      }
       return s;
     });
     const sameLength = (f: string, values: unknown, n: number, what: string, test: (v: number) => boolean = () => true) => {
@@ -570,7 +577,8 @@ export class CefFitModel {
         lineShape: s.lineShape,
         intrinsicFwhmMeV: this.widthIndex >= 0 ? x[this.widthIndex] : s.intrinsicFwhmMeV,
       };
-      const model = spectrumFromTransitions(this.ion, thermalTransitions(levels, s.temperatureK), options).intensity;
+      const along = s.qDirection ? levelStrengthsAlong(levels, s.qDirection) : levels;
+      const model = spectrumFromTransitions(this.ion, thermalTransitions(along, s.temperatureK), options).intensity;
       const weight = s.weight ?? 1;
       let sw = 0, sm = 0, smm = 0, sy = 0, smy = 0;
       for (let i = 0; i < model.length; i++) {
