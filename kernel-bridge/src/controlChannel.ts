@@ -3,7 +3,8 @@
  * thread is stuck in synchronous cell code (a script cell's `while (true) {}`), where no message handler can run.
  *
  * The worker binds the control ROUTER and forwards every message to the main thread, which handles control as
- * usual (replies go back through the worker). For a correctly signed, fresh interrupt_request the worker also
+ * usual (replies go back through the worker). For a correctly signed, fresh interrupt_request the worker at once
+ * sets the running task's cancel flag (slot CANCEL_REQUESTED, which the router hands to the task), and also
  * checks, after INTERRUPT_GRACE_MS, whether the main thread has taken the message yet; if it has not and a cell
  * is running, the main thread is blocked, and the worker raises SIGINT on the process: script cells run under
  * `vm` with `breakOnSigint`, so the synchronous code throws and the cell ends with an error. Signals reach only
@@ -14,6 +15,17 @@ import { Worker } from 'node:worker_threads';
 /** Shared Int32 slots between the main thread and the control worker. */
 export const TASK_RUNNING = 0;
 export const CONTROL_PROCESSED = 1;
+/**
+ * The running task's cancel flag. The worker sets it as soon as a valid interrupt_request arrives, without
+ * waiting for the main thread: long work that checks the flag (task.checkpoint(), the checks in script cells)
+ * stops even while the main thread never gives the event loop a turn (synchronous fits, microtask loops).
+ */
+export const CANCEL_REQUESTED = 2;
+/** Incremented by the router whenever a cancellable task starts. */
+export const TASK_GENERATION = 3;
+/** The generation the worker's SIGINT was meant for (0: none), so a late signal does not hit the next cell. */
+export const SIGINT_TARGET = 4;
+export const SHARED_SLOTS = 5;
 export const INTERRUPT_GRACE_MS = 150;
 
 export interface ControlWorkerData {
@@ -41,7 +53,7 @@ export interface ControlChannel {
 }
 
 export async function startControlWorker(workerUrl: URL, data: Omit<ControlWorkerData, 'shared'>, log: (text: string) => void): Promise<ControlChannel> {
-  const shared = new SharedArrayBuffer(8);
+  const shared = new SharedArrayBuffer(SHARED_SLOTS * Int32Array.BYTES_PER_ELEMENT);
   const slots = new Int32Array(shared);
   const worker = new Worker(workerUrl, { workerData: { ...data, shared } satisfies ControlWorkerData });
   const pending = new Map<number, { resolve(): void; reject(err: Error): void }>();

@@ -8,7 +8,7 @@ import { Router } from 'zeromq';
 import { createSigner, ReplayGuard } from './signing';
 import { decodeMessage } from './wire';
 import { SendQueue } from './sendQueue';
-import { CONTROL_PROCESSED, INTERRUPT_GRACE_MS, TASK_RUNNING, type ControlWorkerData, type MainToWorker, type WorkerToMain } from './controlChannel';
+import { CANCEL_REQUESTED, CONTROL_PROCESSED, INTERRUPT_GRACE_MS, SIGINT_TARGET, TASK_GENERATION, TASK_RUNNING, type ControlWorkerData, type MainToWorker, type WorkerToMain } from './controlChannel';
 
 const data = workerData as ControlWorkerData;
 const port = parentPort!;
@@ -25,10 +25,15 @@ function watchInterrupt(frames: Buffer[], sequence: number): void {
   const decoded = decodeMessage(frames, signer);
   if (!decoded.ok || decoded.value.header.msg_type !== 'interrupt_request') return;
   if (signer.enabled && !replays.accept(decoded.value.signature)) return;
+  if (Atomics.load(slots, TASK_RUNNING) !== 1) return;
+  const generation = Atomics.load(slots, TASK_GENERATION);
+  Atomics.store(slots, CANCEL_REQUESTED, 1);
   setTimeout(() => {
-    const blocked = Atomics.load(slots, CONTROL_PROCESSED) < sequence && Atomics.load(slots, TASK_RUNNING) === 1;
+    const blocked =
+      Atomics.load(slots, CONTROL_PROCESSED) < sequence && Atomics.load(slots, TASK_RUNNING) === 1 && Atomics.load(slots, TASK_GENERATION) === generation;
     if (blocked) {
       post({ type: 'log', text: 'interrupt_request: the main thread is busy in a running cell; raising SIGINT' });
+      Atomics.store(slots, SIGINT_TARGET, generation);
       process.kill(process.pid, 'SIGINT');
     }
   }, INTERRUPT_GRACE_MS);

@@ -12,7 +12,7 @@ import type { MessageFactory } from './messageFactory';
 import { ReplayGuard, type Signer } from './signing';
 import { decodeMessage, encodeMessage, type JsonObject, type ReceivedMessage } from './wire';
 import { CONTROL_HANDLERS, SHELL_HANDLERS } from './handlers/index';
-import { TASK_RUNNING } from './controlChannel';
+import { CANCEL_REQUESTED, SIGINT_TARGET, TASK_GENERATION, TASK_RUNNING } from './controlChannel';
 import type { Channel, HandlerContext, KernelIdentity, KernelState } from './handlers/context';
 
 export type SocketName = 'shell' | 'control' | 'iopub' | 'stdin';
@@ -109,6 +109,18 @@ export class KernelRouter {
     if (this.cancelFlag) Atomics.store(this.cancelFlag, 0, 1);
   }
 
+  /**
+   * SIGINT arrived. A signal the control worker raised for a cell that has ended since (the main thread was
+   * blocked until it finished) is ignored, so it cannot interrupt the next cell; any other SIGINT interrupts.
+   */
+  interruptFromSignal(): boolean {
+    const taskState = this.options.taskState;
+    const target = taskState ? Atomics.exchange(taskState, SIGINT_TARGET, 0) : 0;
+    if (target !== 0 && taskState && (Atomics.load(taskState, TASK_GENERATION) !== target || Atomics.load(taskState, TASK_RUNNING) !== 1)) return false;
+    this.interrupt();
+    return true;
+  }
+
   private async pump(): Promise<void> {
     for (let next = this.shellQueue.shift(); next; next = this.shellQueue.shift()) {
       if (this.aborted.delete(next.message)) await this.abortReply(next.message);
@@ -164,10 +176,21 @@ export class KernelRouter {
           this.publish(type, content, parent ?? request.header);
         },
         cancellable: async (work) => {
-          const flag = new Int32Array(new SharedArrayBuffer(4));
-          this.cancelFlag = flag;
           const taskState = this.options.taskState;
-          if (taskState) Atomics.store(taskState, TASK_RUNNING, 1);
+          // With the control worker the flag is a slot it shares, so it can set the flag itself (controlChannel.ts).
+          const flag = taskState
+            ? new Int32Array(taskState.buffer, taskState.byteOffset + CANCEL_REQUESTED * Int32Array.BYTES_PER_ELEMENT, 1)
+            : new Int32Array(new SharedArrayBuffer(4));
+          Atomics.store(flag, 0, 0);
+          this.cancelFlag = flag;
+          if (taskState) {
+            const generation = Atomics.add(taskState, TASK_GENERATION, 1) + 1;
+            // A worker SIGINT still on its way can only be meant for the task just before; an older target was
+            // consumed by `breakOnSigint` without reaching the listener and must not swallow a later signal.
+            const target = Atomics.load(taskState, SIGINT_TARGET);
+            if (target !== 0 && target < generation - 1) Atomics.compareExchange(taskState, SIGINT_TARGET, target, 0);
+            Atomics.store(taskState, TASK_RUNNING, 1);
+          }
           try {
             return await work(flag);
           } finally {

@@ -58,6 +58,11 @@ class NbclientTests(unittest.TestCase):
         self.assertEqual(code_cells["script-value"].outputs[0].data["text/plain"], "4")
         self.assertEqual(code_cells["script-names"].outputs[0].text, "host, cp, cpFile, cefDy\n")
         self.assertIn("application/vnd.vegalite.v5+json", code_cells["crystal-field"].outputs[0].data)
+        # clearOutput(true) clears just before the next output, clearOutput() at once (nbclient's handling).
+        cleared = code_cells["script-clear"].outputs
+        self.assertEqual([o.output_type for o in cleared], ["display_data", "execute_result"])
+        self.assertEqual(cleared[0].data["text/plain"], "final table")
+        self.assertEqual(cleared[1].data["text/plain"], "done")
         self.assertEqual([c.execution_count for c in code_cells.values()], list(range(1, len(code_cells) + 1)))
 
     def test_a_failing_cell_stops_nbclient_with_the_cell_error(self):

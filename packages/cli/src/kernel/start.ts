@@ -52,8 +52,8 @@ export async function startCommand(args: string[]): Promise<number> {
       process.on('uncaughtException', (err) => log(`uncaught exception outside a request (kernel keeps running): ${describe(err)}`));
       // Without a listener Node would exit on SIGINT; the signal is the fallback way to interrupt a cell.
       process.on('SIGINT', () => {
-        log('SIGINT: interrupting the running cell');
-        kernel.router.interrupt();
+        if (kernel.router.interruptFromSignal()) log('SIGINT: interrupting the running cell');
+        else log('SIGINT: ignored (raised for a cell that has finished since)');
       });
       process.on('SIGTERM', () => finish(kernel));
       log(`started on ${connection.transport}://${connection.ip} (shell ${connection.shell_port}), pid ${process.pid}`);
