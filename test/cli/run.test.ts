@@ -63,6 +63,24 @@ describe('multiplet run', () => {
     expect(validate.stdout.trim()).toBe('valid');
   });
 
+  it('clearOutput() from script cells clears as nbclient does: at once, or with wait just before the next output', async () => {
+    const { path, out } = setup([
+      'console.log("working");\nclearOutput(true);\ndisplay("step 2");\nconsole.log("tail");\nclearOutput();\ndisplay("final");\n"done"',
+      'console.log("kept");\nclearOutput(true);',
+      'console.log("next cell");',
+    ]);
+    capture();
+    expect(await runCommand([path, '--out', out])).toBe(0);
+    const code = (JSON.parse(readFileSync(out, 'utf8')) as Notebook).cells.filter((c) => c.cell_type === 'code');
+    expect(code[0]!.outputs).toEqual([
+      { output_type: 'display_data', data: { 'text/plain': 'final' }, metadata: {} },
+      { output_type: 'execute_result', execution_count: 1, data: { 'text/plain': 'done' }, metadata: {} },
+    ]);
+    // A pending clear with no later output in its cell clears nothing, and never reaches the next cell.
+    expect(code[1]!.outputs).toEqual([{ output_type: 'stream', name: 'stdout', text: 'kept\n' }]);
+    expect(code[2]!.outputs).toEqual([{ output_type: 'stream', name: 'stdout', text: 'next cell\n' }]);
+  });
+
   it('stops at a failing cell and names it (index and first line), exit 1', async () => {
     const { path, out } = setup([SAMPLE, '[crystal-field] bad\nB:\n  B22: 1 meV\n', CEF]);
     const io = capture();
