@@ -1,6 +1,6 @@
 // `npm run validate:spin-ice [-- --L 3 --sweeps 6000]`: checks of the spin-ice Monte Carlo against the literature,
 // too long for the unit tests. Bundles the physics sources with esbuild, then:
-//  1. nearest-neighbour spin ice: residual entropy by thermodynamic integration vs Nagle's 0.2050 R (Nagle,
+//  1. nearest-neighbour spin ice (L = 5): residual entropy by thermodynamic integration vs Nagle's 0.2050 R (Nagle,
 //     J. Math. Phys. 7, 1484 (1966)); Pauling (R/2) ln(3/2) = 0.2027 R;
 //  2. [111] field at T ≪ J_eff: kagome-ice plateau M = μ/3 per spin, saturation μ/2 (geometry of 3-in-1-out);
 //  3. dipolar spin ice with J_nn = −1.24 K, D_nn = 2.35 K (den Hertog & Gingras, PRL 84, 3430 (2000), Dy2Ti2O7):
@@ -35,15 +35,16 @@ const R = P.GAS_CONSTANT_J_PER_MOL_K;
 const t0 = Date.now();
 const elapsed = () => `${((Date.now() - t0) / 1000).toFixed(0)} s`;
 
-// 1. Nagle entropy, L = 4 (finite-size excess about +2 % at L = 3, < 1 % at L = 4).
+// 1. Nagle entropy, L = 5. Measured here: the periodic-cell excess over Nagle's value is about +2 % at L = 3,
+//    +1 % at L = 4, +0.5 % at L = 5; the Monte Carlo scatter between seeds is about ±0.4 % at 2000 sweeps (L = 4).
 {
-  const temps = Array.from({ length: 32 }, (_, k) => 0.1 * Math.pow(300, k / 31));
+  const temps = Array.from({ length: 24 }, (_, k) => 0.12 * Math.pow(250, k / 23));
   const r = P.runSpinIceMonteCarlo({
-    model: { L: 4, latticeConstantAngstrom: 10, momentMuB: 1, exchangeK: { J1: -3 }, dipolar: false },
-    temperaturesK: temps, sweeps: Math.max(sweeps, 2000), seed: 1,
+    model: { L: 5, latticeConstantAngstrom: 10, momentMuB: 1, exchangeK: { J1: -3 }, dipolar: false },
+    temperaturesK: temps, sweeps: Math.max(sweeps, 3000), seed: 1,
   }).result;
   const s = r.entropyJPerMolK[0] / R;
-  console.log(`[1] nn spin ice (J_nn = 1 K, L = 4): S(0.1 K) = ${s.toFixed(4)} R; Nagle 0.2050 R: ${(100 * (s / 0.205 - 1)).toFixed(2)} % ` +
+  console.log(`[1] nn spin ice (J_nn = 1 K, L = 5): S(0.12 K) = ${s.toFixed(4)} R; Nagle 0.2050 R: ${(100 * (s / 0.205 - 1)).toFixed(2)} % ` +
     `(limit 1.5 %) ${Math.abs(s / 0.205 - 1) < 0.015 ? 'PASS' : 'FAIL'}  [${elapsed()}]`);
 }
 
