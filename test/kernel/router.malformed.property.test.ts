@@ -45,7 +45,7 @@ describe('router: malformed but correctly signed messages (fast-check)', () => {
     const broken = fc.oneof(fc.tuple(fc.nat(3), notObject), fc.tuple(fc.constant(0), badHeader));
     await fc.assert(
       fc.asyncProperty(fc.constantFrom('shell' as const, 'control' as const), broken, fc.array(fc.uint8Array({ maxLength: 8 }), { maxLength: 2 }), async (socket, [which, bad], buffers) => {
-        const message = client.message('execute_request', { code: '[sample] other\ncompound: X\nion: Ho3+' });
+        const message = client.message('execute_request', { code: '[sample] other\ncompound: X\nion: Ho3+' }, undefined);
         const parts = [message.header, message.parent_header, message.metadata, message.content].map((p) => Buffer.from(JSON.stringify(p)));
         parts[which] = bad;
         const signature = Buffer.from(signer.sign(parts as [Buffer, Buffer, Buffer, Buffer]), 'ascii');
@@ -82,7 +82,7 @@ describe('router: malformed but correctly signed messages (fast-check)', () => {
     );
     await fc.assert(
       fc.asyncProperty(request, async ({ type, content }) => {
-        const message = client.message(type, content as Record<string, unknown>);
+        const message = client.message(type, content as Record<string, unknown>, undefined);
         h.router.receive('shell', encodeMessage([Buffer.from('p')], message, signer));
         await withTimeout(h.router.drained(), 5000);
         const replies = h.forRequest(message.header.msg_id).filter((s) => s.socket === 'shell');

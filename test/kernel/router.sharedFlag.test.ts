@@ -48,7 +48,7 @@ function setup(session: CellSession) {
     taskState,
   });
   const execute = (code: string) => {
-    const message = client.message('execute_request', { code, silent: false });
+    const message = client.message('execute_request', { code, silent: false }, undefined);
     router.receive('shell', encodeMessage([Buffer.from('peer')], message, signer));
     return message.header.msg_id;
   };
