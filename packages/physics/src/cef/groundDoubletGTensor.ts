@@ -48,6 +48,19 @@ export function matrixElement(vectors: ComplexMatrix, u: number, a: ComplexMatri
 }
 
 /**
+ * Row α of the effective-spin g matrix, g_αβ = g_J Tr(M_α σ_β), from the 2×2 block M_α of J_α inside the doublet
+ * {|a⟩, |b⟩}: M_aa = ⟨a|J_α|a⟩, M_bb = ⟨b|J_α|b⟩, M_ab = ⟨a|J_α|b⟩ = abRe + i abIm (dimensionless).
+ * With σ_y = [[0, −i], [i, 0]]: Tr(M σ_x) = 2 Re M_ab, Tr(M σ_y) = i M_ab − i M_ba = −2 Im M_ab, Tr(M σ_z) = M_aa − M_bb.
+ * The one place of this convention: doubletGTensor and the pseudospin g of exchange/pseudospinSite both use it.
+ *
+ * @example doubletGRow(4 / 3, 7.5, -7.5, 0, 0) // [0, 0, 20]: g∥ of a pure |±15/2⟩ doublet
+ * See also: doubletGTensor
+ */
+export function doubletGRow(gJ: number, aa: number, bb: number, abRe: number, abIm: number): [number, number, number] {
+  return [2 * gJ * abRe, -2 * gJ * abIm, gJ * (aa - bb)];
+}
+
+/**
  * g-tensor of the doublet spanned by columns `a` and `b` of `vectors` (dimensionless).
  *
  * @example doubletGTensor(solution.eigenvectors, 0, 1, angularMomentumMatrices(7.5), 4 / 3)
@@ -61,8 +74,7 @@ export function doubletGTensor(vectors: ComplexMatrix, a: number, b: number, J: 
     const [aa] = matrixElement(vectors, a, op, a);
     const [bb] = matrixElement(vectors, b, op, b);
     const [abr, abi] = matrixElement(vectors, a, op, b);
-    // Tr(M σx) = 2 Re M_ab, Tr(M σy) = −2 Im M_ab ... with σy = [[0, −i], [i, 0]]: Tr(M σy) = i M_ab − i M_ba = −2 Im M_ab
-    return [2 * gJ * abr, -2 * gJ * abi, gJ * (aa - bb)];
+    return doubletGRow(gJ, aa, bb, abr, abi);
   });
   const ggt = zeros(3);
   for (let i = 0; i < 3; i++)

@@ -25,6 +25,7 @@ import { InputError } from '../errors';
 import { zeros, multiply, adjoint, type ComplexMatrix } from '../linalg/complexMatrix';
 import { hermitianEigen } from '../linalg/hermitianEigen';
 import { angularMomentumMatrices } from '../cef/angularMomentum';
+import { doubletGRow, matrixElement } from '../cef/groundDoubletGTensor';
 import { solveCef, type CefSolution } from '../cef/solveCef';
 import type { CefParameters } from '../cef/cefHamiltonian';
 import type { Ion } from '../ions';
@@ -60,27 +61,6 @@ export interface PseudospinSiteOptions {
   degeneracyToleranceMeV?: number;
   /** Field path for errors (default 'ion'). */
   field?: string;
-}
-
-/** ⟨col u of A| M |col v of A⟩ for columns of the same matrix. */
-function element(states: ComplexMatrix, u: number, m: ComplexMatrix, v: number): [number, number] {
-  const n = states.n;
-  let re = 0, im = 0;
-  for (let i = 0; i < n; i++) {
-    const ur = states.re[i * n + u], ui = -states.im[i * n + u];
-    if (ur === 0 && ui === 0) continue;
-    let sr = 0, si = 0;
-    for (let j = 0; j < n; j++) {
-      const mr = m.re[i * n + j], mi = m.im[i * n + j];
-      if (mr === 0 && mi === 0) continue;
-      const vr = states.re[j * n + v], vi = states.im[j * n + v];
-      sr += mr * vr - mi * vi;
-      si += mr * vi + mi * vr;
-    }
-    re += ur * sr - ui * si;
-    im += ur * si + ui * sr;
-  }
-  return [re, im];
 }
 
 function maxAbs(m: ComplexMatrix): number {
@@ -134,7 +114,7 @@ export function pseudospinSite(
   const jz = zeros(2);
   for (let a = 0; a < 2; a++)
     for (let b = 0; b < 2; b++) {
-      const [re, im] = element(states, a, ops.Jz, b);
+      const [re, im] = matrixElement(states, a, ops.Jz, b);
       jz.re[a * 2 + b] = -re; // negated: ascending eigenvalues give ⟨J^z⟩ descending
       jz.im[a * 2 + b] = -im;
     }
@@ -159,7 +139,7 @@ export function pseudospinSite(
   let zReversed = false;
   const tryOps = (list: Array<[ComplexMatrix, DoubletKind]>): boolean => {
     for (const [op, k] of list) {
-      const [re, im] = element(states, 0, op, 1);
+      const [re, im] = matrixElement(states, 0, op, 1);
       const mod = Math.hypot(re, im);
       if (mod > 1e-9 * Math.max(1, maxAbs(op))) {
         setPhase(states, re / mod, -im / mod);
@@ -252,13 +232,7 @@ function setPhase(states: ComplexMatrix, pr: number, pi: number): void {
   }
 }
 
-/** g[a][b] = g_J Tr(P J^a P σ^b) with σ in the (↑, ↓) basis (Abragam & Bleaney 1970, ch. 3; common practice). */
+/** g[a][b] = g_J Tr(P J^a P σ^b) with σ in the (↑, ↓) basis: rows by doubletGRow (cef/groundDoubletGTensor). */
 function doubletG(jLocal: [ComplexMatrix, ComplexMatrix, ComplexMatrix], gJ: number): number[][] {
-  return jLocal.map((m) => {
-    const n = m.n;
-    const upDownRe = m.re[1], upDownIm = m.im[1]; // ⟨↑|J|↓⟩
-    const upUp = m.re[0], downDown = m.re[n + 1];
-    // Tr(M σ^x) = 2 Re M_↑↓, Tr(M σ^y) = −2 Im M_↑↓... with σ^y = [[0, −i], [i, 0]]: Tr(M σ^y) = i M_↑↓ − i M_↓↑ = −2 Im M_↑↓
-    return [gJ * 2 * upDownRe, gJ * -2 * upDownIm, gJ * (upUp - downDown)];
-  });
+  return jLocal.map((m) => doubletGRow(gJ, m.re[0], m.re[m.n + 1], m.re[1], m.im[1])); // ⟨↑|J|↑⟩, ⟨↓|J|↓⟩, ⟨↑|J|↓⟩
 }
