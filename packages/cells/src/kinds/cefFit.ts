@@ -114,7 +114,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
     },
     peaks: {
       type: 'list',
-      doc: 'Observed peaks. Peaks at one temperature are assigned to distinct computed transitions automatically (optimal matching); from/to pin a peak to the transition between two levels (0 = ground).',
+      doc: 'Observed peaks. The peaks of one (temperature, incident energy) group are assigned to distinct computed transitions automatically (optimal matching; the same transition may appear in several groups); from/to pin a peak to the transition between two levels (0 = ground).',
       of: {
         type: 'record',
         doc: 'One peak.',

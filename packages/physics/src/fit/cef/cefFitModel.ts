@@ -7,9 +7,10 @@
  * J. A unit change of x_k moves levels by at most ~1 meV, so B20 (~0.1 meV) and B66 (~1e-5 meV) become comparable,
  * which is what the finite differences, the random starts and the LM scaling need.
  *
- * Assignment (common practice in CEF analyses, made optimal here): at each temperature the observed peaks are matched
- * to distinct visible computed transitions by minimising Σ ((E_obs − E_calc)/σ)² with the Hungarian method
- * (solveAssignment); pinned peaks keep their (from, to) levels. While a Jacobian is taken the assignment is frozen,
+ * Assignment (common practice in CEF analyses, made optimal here): within each (temperature, incident energy) group
+ * the observed peaks are matched to distinct visible computed transitions by minimising Σ ((E_obs − E_calc)/σ)² with
+ * the Hungarian method (solveAssignment); pinned peaks keep their (from, to) levels. The same transition may appear
+ * in several groups (e.g. one line measured with two incident energies at one temperature). While a Jacobian is taken the assignment is frozen,
  * so that finite differences see a smooth function.
  *
  * Intensity scales are profiled out in closed form (variable projection: Golub & Pereyra, SIAM J. Numer. Anal. 10,
@@ -182,7 +183,6 @@ export class CefFitModel {
   readonly upperScaled: Float64Array;
   readonly peaks: PreparedPeak[];
   readonly peakGroups: { temperatureK: number; incidentEnergyMeV?: number; hasIntensity: boolean }[];
-  readonly temperatures: number[];
   readonly spectra: SpectrumObservation[];
   readonly susceptibility: SusceptibilityObservation[];
   readonly magnetization: MagnetizationObservation[];
@@ -277,8 +277,8 @@ export class CefFitModel {
     const pinKeys = new Set<string>();
     this.peaks.forEach((p) => {
       if (!p.pin) return;
-      const key = `${p.temperatureK}|${p.pin.fromLevel}|${p.pin.toLevel}`;
-      if (pinKeys.has(key)) throw new InputError(`peaks[${p.index}].transition`, p.pin, 'a transition not pinned by another peak at the same temperature');
+      const key = `${p.group}|${p.pin.fromLevel}|${p.pin.toLevel}`;
+      if (pinKeys.has(key)) throw new InputError(`peaks[${p.index}].transition`, p.pin, 'a transition not pinned by another peak at the same temperature and incident energy');
       pinKeys.add(key);
     });
     this.spectra = spectraIn.map((s, k) => {
@@ -338,7 +338,6 @@ export class CefFitModel {
     });
     if (peaksIn.length === 0 && spectraIn.length === 0 && this.susceptibility.length === 0 && this.magnetization.length === 0)
       throw new InputError('peaks', peaksIn, 'at least one observed peak, spectrum or bulk dataset (no data to fit)');
-    this.temperatures = [...new Set(this.peaks.map((p) => p.temperatureK))];
     this.residualCount =
       this.peaks.reduce((s, p) => s + (p.intensity === undefined ? 1 : 2), 0) +
       this.spectra.reduce((s, sp) => s + sp.energiesMeV.length, 0) +
@@ -442,17 +441,17 @@ export class CefFitModel {
   }
 
   /**
-   * Optimal assignment of the peaks at each temperature to distinct visible transitions. Cost: ((E_obs − E)/σ_E)²,
+   * Optimal assignment of the peaks of each (temperature, incident energy) group to distinct visible transitions. Cost: ((E_obs − E)/σ_E)²,
    * plus ((s·I − I_obs)/σ_I)² when group scales s are given and the peak has an intensity.
    */
   private assignPeaks(levels: LevelStrengths, scales: number[] | undefined): PeakAssignment[] {
     const L = levels.groups.length;
     const assignments: PeakAssignment[] = new Array(this.peaks.length);
-    for (const T of this.temperatures) {
-      const population = this.populations(levels, T);
+    for (let group = 0; group < this.peakGroups.length; group++) {
+      const population = this.populations(levels, this.peakGroups[group].temperatureK);
       const weightOf = (a: number, b: number) => population[a] * levels.pairStrengths[b * L + a];
       const energyOf = (a: number, b: number) => levels.levelEnergiesMeV[b] - levels.levelEnergiesMeV[a];
-      const atT = this.peaks.filter((p) => p.temperatureK === T);
+      const atT = this.peaks.filter((p) => p.group === group);
       const pinned = new Set<string>();
       for (const p of atT) {
         if (!p.pin) continue;
