@@ -83,10 +83,13 @@ class JupyterServerTests(unittest.TestCase):
             self.assertEqual(replies["reply"]["content"]["status"], "ok")
             self.assertEqual(replies["stream"], "via server\n")
             self.assertEqual(replies["result"]["text/plain"], "42")
-            # The server follows the kernel's IOPub status on its own subscription, which can lag the websocket's.
+            # The server follows the kernel's IOPub status on its own SUB socket, which can connect after the cell
+            # above ran (ZeroMQ drops what a PUB sends before a subscriber joins: the server then still says
+            # "starting"). Run a trivial cell again until the server has seen a status message.
             deadline = time.monotonic() + 10
             while self.api("GET", f"/api/kernels/{kernel['id']}")["execution_state"] != "idle" and time.monotonic() < deadline:
-                time.sleep(0.2)
+                time.sleep(0.5)
+                asyncio.run(self.execute_over_websocket(kernel["id"], "1"))
             self.assertEqual(self.api("GET", f"/api/kernels/{kernel['id']}")["execution_state"], "idle")
         finally:
             self.api("DELETE", f"/api/kernels/{kernel['id']}")
