@@ -1,4 +1,5 @@
 import { InputError } from '../errors';
+import { pyrochloreLocalFrames, type LocalFrame } from '../lattice/localFrames';
 
 /** A 3×3 rotation, row-major [[r00, r01, r02], [r10, r11, r12], [r20, r21, r22]]; its columns are the local x, y, z axes in the global (cubic) frame. */
 export type Rotation3 = readonly [readonly [number, number, number], readonly [number, number, number], readonly [number, number, number]];
@@ -6,11 +7,8 @@ export type Rotation3 = readonly [readonly [number, number, number], readonly [n
 /** Built-in sets of site frames. */
 export type SiteFrameName = 'single' | 'pyrochlore';
 
-const s3 = 1 / Math.sqrt(3), s6 = 1 / Math.sqrt(6);
-
-/** Frame with local axes x, y = z × x, z given as global unit vectors: columns of the rotation local → global. */
-function frame(x: readonly number[], z: readonly number[]): Rotation3 {
-  const y = [z[1] * x[2] - z[2] * x[1], z[2] * x[0] - z[0] * x[2], z[0] * x[1] - z[1] * x[0]];
+/** The rotation local → global whose columns are the frame's x̂, ŷ, ẑ. */
+function rotationFromFrame({ x, y, z }: LocalFrame): Rotation3 {
   return [
     [x[0], y[0], z[0]],
     [x[1], y[1], z[1]],
@@ -19,23 +17,14 @@ function frame(x: readonly number[], z: readonly number[]): Rotation3 {
 }
 
 /**
- * The four local frames of the pyrochlore (and spinel B) sites, in the cubic frame of the crystal.
- * Sites at (0,0,0), (0,¼,¼), (¼,0,¼), (¼,¼,0) (× a) with local z along the ⟨111⟩ axis through the tetrahedron
- * centre and local x perpendicular to it in a mirror plane (common practice; e.g. the local axes tabulated by
- * Ross et al., Phys. Rev. X 1, 021002 (2011)):
- *   z₀ = [ 1, 1, 1]/√3,  x₀ = [−2, 1, 1]/√6
- *   z₁ = [ 1,−1,−1]/√3,  x₁ = [−2,−1,−1]/√6
- *   z₂ = [−1, 1,−1]/√3,  x₂ = [ 2, 1,−1]/√6
- *   z₃ = [−1,−1, 1]/√3,  x₃ = [ 2,−1, 1]/√6
- * and y = z × x (y₀ = [0,−1,1]/√2, a two-fold axis of site 0). Sites 1, 2, 3 are site 0 turned by the two-fold
- * rotations about [100], [010], [001], so one set of CEF parameters in the local frame serves all four.
+ * The four local frames of the pyrochlore (and spinel B) sites, in the cubic frame of the crystal: the frames of
+ * `lattice/localFrames.ts` (the one source; axes, site order μ = 0..3 and handedness ŷ = ẑ × x̂ are documented in
+ * `lattice/pyrochlore.ts`), written as rotations:
+ *   z₀ = [ 1, 1, 1]/√3,  x₀ = [−2, 1, 1]/√6,  y₀ = [0, −1, 1]/√2 (a two-fold axis of site 0), …
+ * Sites 1, 2, 3 are site 0 turned by the two-fold rotations about [100], [010], [001], so one set of CEF
+ * parameters in the local frame serves all four.
  */
-const PYROCHLORE: readonly Rotation3[] = [
-  frame([-2 * s6, s6, s6], [s3, s3, s3]),
-  frame([-2 * s6, -s6, -s6], [s3, -s3, -s3]),
-  frame([2 * s6, s6, -s6], [-s3, s3, -s3]),
-  frame([2 * s6, -s6, s6], [-s3, -s3, s3]),
-];
+const PYROCHLORE: readonly Rotation3[] = pyrochloreLocalFrames().map(rotationFromFrame);
 
 const IDENTITY: Rotation3 = [
   [1, 0, 0],
@@ -48,7 +37,7 @@ const IDENTITY: Rotation3 = [
  * magnetic sites. A field B given in the global frame acts on site s as B_local = R_sᵀ B; a local moment m_local
  * appears in the global frame as R_s m_local.
  *
- * 'single': one site whose local frame is the global frame. 'pyrochlore': the four ⟨111⟩ frames listed above.
+ * 'single': one site whose local frame is the global frame. 'pyrochlore': the four ⟨111⟩ frames of lattice/localFrames.
  * A custom list of rotations is checked for orthonormality and det = +1.
  *
  * @example siteFrames('pyrochlore')[0][2][2] // z-component of local z of site 0 = 1/√3
