@@ -145,6 +145,7 @@ export const cefFit: ComputeKind = {
       startsRun: report.startsRun,
       distinctMinimaFound: report.distinctMinimaFound,
       hamiltonianEvaluations: report.hamiltonianEvaluations,
+      twinFlippedKeys: report.twinFlippedKeys,
       warnings: report.warnings,
       ...(posterior ? { posterior } : {}),
     };

@@ -8,6 +8,9 @@
  * start plus `starts` random starts brought to the energy scale of the data (cefRandomStarts). Errors are 1σ from the Jacobian covariance with the data errors
  * trusted as given (errorScaling 'data', default) or inflated by χ²_red ('residual').
  *
+ * Symmetry twins (frame rotations that leave the data unchanged, fit/cef/cefTwins.ts) are merged into one minimum
+ * and reported under a stated sign convention (B43 ≥ 0 in D3d unless the start has B43 < 0).
+ *
  * @example
  *   const report = fitCef({ ion: 'Er3+', symmetry: 'D3d', start: { B20: -0.05, B40: 1e-3 },
  *     peaks: [{ energyMeV: 7.9, errorMeV: 0.1, temperatureK: 5 }, …] }, { starts: 32, seed: 1 });
@@ -19,6 +22,7 @@ import type { LongTask } from '../progress';
 import { createRandom, type Random } from '../random';
 import { levelStrengths } from '../neutron/cefTransitions';
 import { CefFitModel, type CefFitSpec, type PeakAssignment } from './cef/cefFitModel';
+import { CefTwins } from './cef/cefTwins';
 import { finiteDifferenceJacobian } from './finiteDifferenceJacobian';
 import { multiStartSearch } from './multiStartSearch';
 import type { LevenbergMarquardtResult } from './levenbergMarquardt';
@@ -90,6 +94,8 @@ export interface CefFitReport {
   readonly distinctMinimaFound: number;
   /** Model evaluations (one H_CEF diagonalisation for the neutron data each; χ and M diagonalise again). */
   readonly hamiltonianEvaluations: number;
+  /** Free keys whose sign a symmetry twin flips (empty: no twins for this symmetry and these fixed parameters). */
+  readonly twinFlippedKeys: readonly string[];
   readonly warnings: readonly string[];
 }
 
@@ -188,19 +194,24 @@ export function fitCef(spec: CefFitSpec, options: FitCefOptions = {}): CefFitRep
   if (!Number.isInteger(starts) || starts < 0) throw new InputError('starts', starts, 'a non-negative integer');
   const random = createRandom(options.seed ?? 0);
   const randomStarts = cefRandomStarts(model, starts, random, options.task);
-  const search = multiStartSearch(problem, {
-    lower: model.lowerScaled,
-    upper: model.upperScaled,
-    starts: 0,
-    initialPoints: [model.startScaled, ...randomStarts],
+  const twins = new CefTwins(model);
+  const local = {
     seed: options.seed ?? 0,
-    chi2Margin: options.chi2Margin,
     errorScaling: options.errorScaling ?? 'data',
     maxIterations: options.maxIterations ?? 200,
     // The assignment makes χ² piecewise smooth: stop at 1e-8 relative steps rather than machine precision.
     xTolerance: 1e-8,
     chi2Tolerance: 1e-12,
     task: options.task,
+  } as const;
+  const search = multiStartSearch(problem, {
+    ...local,
+    lower: model.lowerScaled,
+    upper: model.upperScaled,
+    starts: 0,
+    initialPoints: [model.startScaled, ...randomStarts],
+    chi2Margin: options.chi2Margin,
+    canonicalize: (fit) => twins.canonicalFit(fit),
   });
   const minima = search.minima.map((m) => describeCefSolution(model, m.fit, m.hits));
   const warnings: string[] = [];
@@ -214,6 +225,7 @@ export function fitCef(spec: CefFitSpec, options: FitCefOptions = {}): CefFitRep
     startsRun: search.startsRun,
     distinctMinimaFound: search.distinctMinimaFound,
     hamiltonianEvaluations: model.hamiltonianEvaluations,
+    twinFlippedKeys: [...new Set(twins.maps.flatMap((m) => m.flippedKeys))],
     warnings,
   };
 }

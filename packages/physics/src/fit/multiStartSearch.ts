@@ -42,6 +42,11 @@ export interface MultiStartOptions extends Omit<LevenbergMarquardtOptions, 'lowe
   readonly relativeMargin?: number;
   /** Parameters within this many σ are the same minimum. Default 0.5. */
   readonly sameMinimumSigma?: number;
+  /**
+   * Maps every local result to a representative of its class of equivalent solutions before the merge (e.g. one of
+   * the symmetry twins of a crystal field, fit/cef/cefTwins.ts), so that equivalent minima count as one.
+   */
+  readonly canonicalize?: (fit: LevenbergMarquardtResult) => LevenbergMarquardtResult;
   readonly task?: LongTask;
 }
 
@@ -104,7 +109,7 @@ export function multiStartSearch(problem: LeastSquaresProblem, options: MultiSta
     task?.report(k, points.length, 'multi-start');
     const fit = levenbergMarquardt(problem, start, { ...options, lower, upper, task });
     evaluations += fit.evaluations;
-    results.push(fit);
+    results.push(options.canonicalize ? options.canonicalize(fit) : fit);
   });
   task?.report(points.length, points.length, 'multi-start');
 
