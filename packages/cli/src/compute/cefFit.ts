@@ -18,7 +18,7 @@
  *   seed (default 0), starts (random starts besides `start`, default 0), chi2Margin (default 1),
  *   errorScaling ('data' default | 'residual'), mcmc {steps, walkers?, burnIn?, thin?, seed?} (optional)
  * Output: best {B (meV), errors (meV, 1σ), chi2, chi2Reduced, degreesOfFreedom, correlation, freeKeys, levelsMeV, peaks,
- * chi2ByDataset, peakScales, spectrumScales}, minima [{B, errors, chi2, chi2Reduced, hits, levelsMeV}],
+ * chi2ByDataset, residualsByDataset, peakScales, spectrumScales}, minima [{B, errors, chi2, chi2Reduced, hits, levelsMeV}],
  * hamiltonianEvaluations, startsRun, distinctMinimaFound, warnings, posterior (with mcmc).
  */
 import { InputError } from '@multiplet/physics/errors';
@@ -135,6 +135,7 @@ export const cefFit: ComputeKind = {
         freeKeys: best.freeKeys,
         correlation: best.correlation,
         chi2ByDataset: best.chi2ByDataset,
+        residualsByDataset: best.residualsByDataset,
         peaks: best.peakAssignments.map((a, i) => ({ ...a, energyResidual: best.peakEnergyResiduals[i] })),
         peakScales: best.peakScales,
         spectrumScales: best.spectrumScales,

@@ -67,6 +67,17 @@ export interface CefFitSolution {
     readonly susceptibility: readonly number[];
     readonly magnetization: readonly number[];
   };
+  /**
+   * Normalised residuals √weight·(model − data)/σ per dataset, in the data's order: per peak the energy residual and
+   * the intensity residual (null without an observed intensity); one array per spectrum (one value per energy
+   * point, model = scale·S(E) + background), per χ(T) and per M(B) dataset.
+   */
+  readonly residualsByDataset: {
+    readonly peaks: { readonly energy: readonly number[]; readonly intensity: readonly (number | null)[] };
+    readonly spectra: readonly (readonly number[])[];
+    readonly susceptibility: readonly (readonly number[])[];
+    readonly magnetization: readonly (readonly number[])[];
+  };
   /** Profiled (or 1) scale per χ(T) and M(B) dataset. */
   readonly bulkScales: { readonly susceptibility: readonly number[]; readonly magnetization: readonly number[] };
   /** Per peak: the transition it is assigned to and the computed energy (and intensity). */
@@ -128,6 +139,22 @@ export function describeCefSolution(model: CefFitModel, fit: LevenbergMarquardtR
   const correlation = Array.from({ length: p }, (_, a) => Array.from({ length: p }, (_, b) => fit.correlation[a * all + b]));
   const width = model.widthIndex >= 0 ? { valueMeV: fit.parameters[model.widthIndex], errorMeV: fit.standardErrors[model.widthIndex] } : undefined;
   const dof = model.degreesOfFreedom;
+  // Split the residual vector in the order the model writes it: peaks (energy, then intensity), spectra, χ(T), M(B).
+  const r = evaluation.residuals;
+  let offset = 0;
+  const take = (n: number) => Array.from(r.subarray(offset, (offset += n)));
+  const peakEnergy: number[] = [];
+  const peakIntensity: (number | null)[] = [];
+  for (const peak of model.peaks) {
+    peakEnergy.push(r[offset++]);
+    peakIntensity.push(peak.intensity === undefined ? null : r[offset++]);
+  }
+  const residualsByDataset = {
+    peaks: { energy: peakEnergy, intensity: peakIntensity },
+    spectra: model.spectra.map((sp) => take(sp.energiesMeV.length)),
+    susceptibility: model.susceptibility.map((d) => take(d.temperaturesK.length)),
+    magnetization: model.magnetization.map((d) => take(d.fieldsT.length)),
+  };
   return {
     parametersMeV: model.parametersMeV(fit.parameters),
     errorsMeV,
@@ -142,6 +169,7 @@ export function describeCefSolution(model: CefFitModel, fit: LevenbergMarquardtR
       susceptibility: evaluation.bulkChi2.susceptibility,
       magnetization: evaluation.bulkChi2.magnetization,
     },
+    residualsByDataset,
     bulkScales: evaluation.bulkScales,
     peakAssignments: evaluation.assignments,
     peakEnergyResiduals: model.peaks.map((peak) => (evaluation.assignments[peak.index].computedMeV - peak.energyMeV) / peak.errorMeV),
