@@ -11,40 +11,17 @@
  * Output keys carry their units; see the README's compute table.
  */
 import { InputError } from '@multiplet/physics/errors';
-import { getIon } from '@multiplet/physics/ions';
-import { normalizeCefParameters, solveCef, describeLevels } from '@multiplet/physics/cef';
+import { solveCef, describeLevels } from '@multiplet/physics/cef';
 import type { ComputeKind } from './index';
+import { checkFields, optionalNumber, readCefInput } from './inputs';
 
 const FIELDS = ['ion', 'B', 'unit', 'symmetry', 'degeneracyToleranceMeV', 'isolationWarningMeV', 'weightThreshold'];
-
-function optionalString(input: Record<string, unknown>, key: string): string | undefined {
-  const v = input[key];
-  if (v === undefined) return undefined;
-  if (typeof v !== 'string') throw new InputError(key, v, 'a string');
-  return v;
-}
-
-function optionalNumber(input: Record<string, unknown>, key: string): number | undefined {
-  const v = input[key];
-  if (v === undefined) return undefined;
-  if (typeof v !== 'number' || !Number.isFinite(v)) throw new InputError(key, v, 'a finite number');
-  return v;
-}
 
 export const crystalField: ComputeKind = {
   summary: 'CEF levels, |J,m> eigenvectors and ground-doublet g-tensor of an R3+ ion from Stevens parameters',
   run(input) {
-    for (const key of Object.keys(input)) if (!FIELDS.includes(key)) throw new InputError(key, input[key], `no such field; fields are ${FIELDS.join(', ')}`);
-    if (input.ion === undefined) throw new InputError('ion', undefined, 'an ion name such as "Dy3+"');
-    const ion = getIon(input.ion as string);
-    const B = input.B;
-    if (B === undefined || B === null || typeof B !== 'object' || Array.isArray(B))
-      throw new InputError('B', B, 'an object of Stevens parameters, e.g. {"B20": -0.2, "B40": 0.001}');
-    const parametersMeV = normalizeCefParameters(B as Record<string, unknown>, {
-      unit: optionalString(input, 'unit'),
-      symmetry: optionalString(input, 'symmetry'),
-      field: 'B',
-    });
+    checkFields(input, FIELDS);
+    const { ion, parametersMeV } = readCefInput(input, { requireB: true });
     const weightThreshold = optionalNumber(input, 'weightThreshold') ?? 1e-3;
     if (weightThreshold < 0 || weightThreshold > 1) throw new InputError('weightThreshold', weightThreshold, 'a number between 0 and 1');
     const solution = solveCef(ion, parametersMeV, {

@@ -13,7 +13,7 @@
 import { InputError } from '@multiplet/physics/errors';
 import { magneticEntropy, R_LN2_J_PER_MOL_K, SPIN_ICE_ENTROPY_J_PER_MOL_K, type EntropyExtrapolation } from '@multiplet/physics/thermo';
 import type { ComputeKind } from './index';
-import { checkFields, optionalNumber, optionalString, plain, requiredArray } from './thermoInput';
+import { checkFields, optionalNumber, optionalString, plain, requiredArray } from './inputs';
 
 const FIELDS = ['temperaturesK', 'heatCapacityJPerMolK', 'uncertaintyJPerMolK', 'extrapolation', 'lowPoints'];
 

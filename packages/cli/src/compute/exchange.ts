@@ -19,8 +19,6 @@
  * order, null for order 1), ratios, interpretation, twoSiteCheck (meV), and the details listed in the README.
  */
 import { InputError } from '@multiplet/physics/errors';
-import { getIon } from '@multiplet/physics/ions';
-import { normalizeCefParameters } from '@multiplet/physics/cef';
 import {
   pseudospinSiteFromParameters,
   pyrochloreBond,
@@ -33,6 +31,7 @@ import {
   type MicroscopicCouplingSpec,
 } from '@multiplet/physics/exchange';
 import type { ComputeKind } from './index';
+import { checkFields, readCefInput } from './inputs';
 
 const FIELDS = ['ion', 'B', 'unit', 'symmetry', 'latticeConstantAngstrom', 'bond', 'geometry', 'coupling', 'order', 'furtherNeighbours'];
 const COUPLING_FIELDS = ['isotropicMeV', 'matrixMeV', 'dipolar'];
@@ -54,18 +53,11 @@ function couplingsJson(c: PseudospinCouplings) {
 export const exchange: ComputeKind = {
   summary: 'effective pseudospin-1/2 exchange J_zz, J_±, J_±±, J_z± of a bond to first and second order, with exact two-site check',
   run(input) {
-    for (const key of Object.keys(input)) if (!FIELDS.includes(key)) throw new InputError(key, input[key], `no such field; fields are ${FIELDS.join(', ')}`);
-    if (input.ion === undefined) throw new InputError('ion', undefined, 'an ion name such as "Yb3+"');
-    const ion = getIon(input.ion as string);
-    const B = input.B;
-    if (B === undefined || B === null || typeof B !== 'object' || Array.isArray(B))
-      throw new InputError('B', B, 'an object of Stevens parameters in the local frame, e.g. {"B20": 0.4, "B43": 0.1}');
-    for (const key of ['unit', 'symmetry'])
-      if (input[key] !== undefined && typeof input[key] !== 'string') throw new InputError(key, input[key], 'a string');
-    const parametersMeV = normalizeCefParameters(B as Record<string, unknown>, {
-      unit: input.unit as string | undefined,
-      symmetry: input.symmetry as string | undefined,
-      field: 'B',
+    checkFields(input, FIELDS);
+    const { ion, parametersMeV } = readCefInput(input, {
+      requireB: true,
+      ionExample: 'Yb3+',
+      expectedB: 'an object of Stevens parameters in the local frame, e.g. {"B20": 0.4, "B43": 0.1}',
     });
     const order = input.order ?? 2;
     if (order !== 1 && order !== 2) throw new InputError('order', order, '1 or 2');

@@ -12,7 +12,7 @@
 import { InputError } from '@multiplet/physics/errors';
 import { cefHeatCapacity } from '@multiplet/physics/thermo';
 import type { ComputeKind } from './index';
-import { checkFields, optionalNumber, plain, readIon, requiredArray } from './thermoInput';
+import { checkFields, optionalNumber, plain, readIon, requiredArray } from './inputs';
 
 const FIELDS = ['ion', 'B', 'unit', 'symmetry', 'temperaturesK', 'fieldT', 'ionsPerFormulaUnit'];
 

@@ -13,9 +13,9 @@
  * Output: magnetizationMuB (μB per ion; one array per temperature, one value per field), and the powder grid used.
  */
 import { InputError } from '@multiplet/physics/errors';
-import { magnetization as computeMagnetization, type Demagnetization } from '@multiplet/physics/thermo';
+import { magnetization as computeMagnetization } from '@multiplet/physics/thermo';
 import type { ComputeKind } from './index';
-import { checkFields, optionalNumber, plain, readDirection, readIon, readSites, requiredArray } from './thermoInput';
+import { checkFields, optionalNumber, plain, readDirection, readIon, readMeanField, readSites, requiredArray } from './inputs';
 
 const FIELDS = ['ion', 'B', 'unit', 'symmetry', 'temperaturesK', 'fieldsT', 'direction', 'sites', 'powderDegree', 'powderTolerance', 'meanFieldMolPerEmu', 'demagnetization'];
 
@@ -38,8 +38,7 @@ export const magnetization: ComputeKind = {
       direction,
       sites,
       powder: direction === 'powder' ? (degree !== undefined ? { degree, tolerance } : { tolerance }) : undefined,
-      meanFieldMolPerEmu: optionalNumber(input, 'meanFieldMolPerEmu'),
-      demagnetization: input.demagnetization as Demagnetization | undefined,
+      ...readMeanField(input),
     });
     return {
       ion: name,

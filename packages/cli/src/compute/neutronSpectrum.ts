@@ -20,10 +20,9 @@
  * unless qDirection), levelsMeV, populations, formFactor.
  */
 import { InputError } from '@multiplet/physics/errors';
-import { getIon } from '@multiplet/physics/ions';
-import { normalizeCefParameters } from '@multiplet/physics/cef';
 import { neutronSpectrum as computeSpectrum, type NeutronSpectrumOptions } from '@multiplet/physics/neutron/neutronSpectrum';
 import type { ComputeKind } from './index';
+import { checkFields, readCefInput } from './inputs';
 
 const FIELDS = [
   'ion', 'B', 'unit', 'symmetry', 'temperatureK', 'energiesMeV', 'qInvAngstrom', 'incidentEnergyMeV', 'resolution',
@@ -44,11 +43,8 @@ const isTriple = (v: unknown): v is [number, number, number] => Array.isArray(v)
 export const neutronSpectrum: ComputeKind = {
   summary: 'CEF neutron spectrum S(E) in mb/sr/meV per ion (powder or single crystal) with resolution, plus transitions',
   run(input) {
-    for (const key of Object.keys(input)) if (!FIELDS.includes(key)) throw new InputError(key, input[key], `no such field; fields are ${FIELDS.join(', ')}`);
-    if (input.ion === undefined) throw new InputError('ion', undefined, 'an ion name such as "Er3+"');
-    const ion = getIon(input.ion as string);
-    if (!isObject(input.B)) throw new InputError('B', input.B, 'an object of Stevens parameters, e.g. {"B20": -0.2}');
-    const parametersMeV = normalizeCefParameters(input.B, { unit: optional(input, 'unit', isString, 'a string'), symmetry: optional(input, 'symmetry', isString, 'a string') });
+    checkFields(input, FIELDS);
+    const { ion, parametersMeV } = readCefInput(input, { requireB: true, ionExample: 'Er3+', expectedB: 'an object of Stevens parameters, e.g. {"B20": -0.2}' });
     if (!Array.isArray(input.energiesMeV)) throw new InputError('energiesMeV', input.energiesMeV, 'a list of energy transfers in meV');
     const resolution = optional(input, 'resolution', isObject, 'an object {fwhmPolynomialMeV: [c0, c1, …]}');
     if (resolution) for (const key of Object.keys(resolution)) if (key !== 'fwhmPolynomialMeV') throw new InputError(`resolution.${key}`, resolution[key], 'only fwhmPolynomialMeV');

@@ -24,7 +24,7 @@ import { InputError } from '@multiplet/physics/errors';
 import { runSpinIceMonteCarlo } from '@multiplet/physics/montecarlo/runSpinIceMonteCarlo';
 import type { SpinIceRunOptions } from '@multiplet/physics/montecarlo/spinIceSimulation';
 import type { ComputeKind } from './index';
-import { checkFields, optionalNumber, requiredArray } from './thermoInput';
+import { checkFields, optionalNumber, requiredArray } from './inputs';
 
 /** Input fields shared with `structure-factor`. */
 export const SPIN_ICE_FIELDS = [

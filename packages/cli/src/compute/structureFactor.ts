@@ -17,7 +17,7 @@ import { powderIntensity } from '@multiplet/physics/scattering/powderIntensity';
 import { magneticFormFactor } from '@multiplet/physics/neutron';
 import { MAGNETIC_PREFACTOR_MB } from '@multiplet/physics/units';
 import type { ComputeKind } from './index';
-import { checkFields, optionalNumber, optionalString, requiredArray } from './thermoInput';
+import { checkFields, optionalNumber, optionalString, requiredArray } from './inputs';
 import { SPIN_ICE_FIELDS, readSpinIceRunInput } from './spinIceMc';
 
 export const structureFactor: ComputeKind = {

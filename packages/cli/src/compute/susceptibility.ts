@@ -11,10 +11,10 @@
  *   demagnetization            { factor (SI), molarVolumeCm3PerMol (per mole of ions) }, default none
  * Output: chiEmuPerMol (per mole of rare-earth ions) and inverseChiMolPerEmu, chiM3PerMol, and per formula unit.
  */
-import { vanVleckSusceptibility, type Demagnetization } from '@multiplet/physics/thermo';
+import { vanVleckSusceptibility } from '@multiplet/physics/thermo';
 import { CURIE_PREFACTOR_EMU_K_PER_MOL } from '@multiplet/physics/units';
 import type { ComputeKind } from './index';
-import { checkFields, optionalNumber, plain, readDirection, readIon, readSites, requiredArray } from './thermoInput';
+import { checkFields, optionalNumber, plain, readDirection, readIon, readMeanField, readSites, requiredArray } from './inputs';
 
 const FIELDS = ['ion', 'B', 'unit', 'symmetry', 'temperaturesK', 'direction', 'sites', 'ionsPerFormulaUnit', 'meanFieldMolPerEmu', 'demagnetization'];
 
@@ -30,8 +30,7 @@ export const susceptibility: ComputeKind = {
       direction,
       sites,
       ionsPerFormulaUnit: optionalNumber(input, 'ionsPerFormulaUnit'),
-      meanFieldMolPerEmu: optionalNumber(input, 'meanFieldMolPerEmu'),
-      demagnetization: input.demagnetization as Demagnetization | undefined,
+      ...readMeanField(input),
     });
     return {
       ion: name,
