@@ -11,13 +11,21 @@
  *   peaks:
  *     - { energy: 7.9 meV, error: 0.1 meV, intensity: 1.0, intensityError: 0.05, temperature: 5 K }
  *     - { energy: 12.6 meV, error: 0.2 meV, temperature: 5 K }
+ *   susceptibility:
+ *     - { data: chiData, temperatureColumn: T, chiColumn: chi, errorColumn: dchi, fitScale: true }
+ *   magnetization:
+ *     - { data: m2K, temperature: 2 K, direction: [0, 0, 1] }
  */
-import { fitCef, sampleCefPosterior, type CefFitSolution, type CefFitSpec, type PeakObservation, type SpectrumObservation } from '@multiplet/physics/fit';
+import {
+  fitCef, sampleCefPosterior, type CefFitSolution, type CefFitSpec, type MagnetizationObservation, type PeakObservation, type SpectrumObservation,
+  type SusceptibilityObservation,
+} from '@multiplet/physics/fit';
 import { LINE_SHAPES } from '@multiplet/physics/neutron';
 import { CEF_PARAMETER_KEYS, parseParameterKey, parameterKey } from '@multiplet/physics/cef';
 import { defineKind, type DatasetResult } from './types';
 import { convertValue } from '../syntax/quantity';
 import { escapeHtml, formatNumber, htmlKeyValue, htmlTable, textTable } from '../render/format';
+import { dataColumn, susceptibilityToEmuPerMol } from './thermoShared';
 
 interface PeakInput {
   energy: number; error: number; intensity?: number; intensityError?: number; temperature: number;
@@ -28,12 +36,20 @@ interface SpectrumInput {
   incidentEnergy?: number; Q?: number; resolution: number[]; lineShape: 'gaussian' | 'lorentzian' | 'pseudo-voigt'; intrinsicWidth: number; weight: number;
   qDirection?: number[];
 }
+interface BulkInput {
+  data: string; errorColumn?: string; direction?: number[]; sites: 'single' | 'pyrochlore'; meanField: number;
+  fitScale: boolean; weight: number; perFormulaUnit: boolean;
+}
+interface SusceptibilityInput extends BulkInput { temperatureColumn?: string; chiColumn?: string }
+interface MagnetizationInput extends BulkInput { temperature: number; fieldColumn?: string; momentColumn?: string }
 interface CefFitInput {
   start: string;
   free?: string[];
   bounds?: Record<string, number[]>;
   peaks?: PeakInput[];
   spectra?: SpectrumInput[];
+  susceptibility?: SusceptibilityInput[];
+  magnetization?: MagnetizationInput[];
   fitWidth: boolean;
   widthStart: number;
   starts: number;
@@ -59,7 +75,15 @@ export interface CefFitCellResult {
   best: SolutionJson & {
     freeKeys: string[];
     correlation: number[][];
-    chi2ByDataset: { peaks: number; spectra: number[] };
+    chi2ByDataset: { peaks: number; spectra: number[]; susceptibility: number[]; magnetization: number[] };
+    /** √weight·(model − data)/σ per point, per dataset. */
+    residuals: {
+      peaks: { energy: number[]; intensity: (number | null)[] };
+      spectra: { temperatureK: number; incidentEnergyMeV: number | null; energiesMeV: number[]; values: number[] }[];
+      susceptibility: { temperaturesK: number[]; values: number[] }[];
+      magnetization: { temperatureK: number; fieldsT: number[]; values: number[] }[];
+    };
+    bulkScales: { susceptibility: number[]; magnetization: number[] };
     peaks: { fromLevel: number; toLevel: number; computedMeV: number; computedIntensity: number | null; unassigned: boolean; energyResidual: number }[];
     spectrumScales: number[][];
     intrinsicWidth: { valueMeV: number; errorMeV: number } | null;
@@ -68,6 +92,7 @@ export interface CefFitCellResult {
   startsRun: number;
   distinctMinimaFound: number;
   hamiltonianEvaluations: number;
+  twinFlippedKeys: string[];
   warnings: string[];
   posterior: {
     parameters: Record<string, { mean: number; standardDeviation: number }>;
@@ -153,6 +178,47 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
         },
       },
     },
+    susceptibility: {
+      type: 'list',
+      doc: 'χ(T) datasets from data cells for a joint fit (Van Vleck χ from the same crystal field, per mole of rare-earth ions).',
+      of: {
+        type: 'record',
+        doc: 'One χ(T) dataset.',
+        fields: {
+          data: { type: 'reference', kinds: ['data'], required: true, doc: 'A data result: T, χ and error columns.' },
+          temperatureColumn: { type: 'string', doc: 'Temperature column (default: the first; unit K).' },
+          chiColumn: { type: 'string', doc: 'χ column (default: the second; emu/mol, cm^3/mol or m^3/mol).' },
+          errorColumn: { type: 'string', doc: 'Error column (default: the third); same unit as the values.' },
+          direction: { type: 'list', of: { type: 'number', doc: 'Component.' }, minItems: 3, maxItems: 3, doc: 'Field direction [x, y, z] in the crystal frame (default: powder).' },
+          sites: { type: 'choice', values: ['single', 'pyrochlore'], default: 'single', doc: 'Site frames: one site, or the four ⟨111⟩ frames of the pyrochlore lattice.' },
+          meanField: { type: 'number', default: 0, doc: 'Molecular-field constant λ (mol/emu per mole of ions): 1/χ = 1/χ_CEF − λ.' },
+          fitScale: { type: 'boolean', default: false, doc: 'Fit a scale factor for this dataset (e.g. an uncertain sample mass).' },
+          weight: { type: 'number', min: 0, default: 1, doc: 'Relative weight of this dataset in χ².' },
+          perFormulaUnit: { type: 'boolean', default: false, doc: 'The data are per mole of formula units: divided by the sample’s ions per formula unit.' },
+        },
+      },
+    },
+    magnetization: {
+      type: 'list',
+      doc: 'M(B) datasets from data cells for a joint fit (one temperature each; μB per rare-earth ion).',
+      of: {
+        type: 'record',
+        doc: 'One M(B) dataset.',
+        fields: {
+          data: { type: 'reference', kinds: ['data'], required: true, doc: 'A data result: B, M and error columns.' },
+          temperature: { type: 'quantity', unit: 'K', min: 0, required: true, doc: 'Temperature of the measurement (> 0).' },
+          fieldColumn: { type: 'string', doc: 'Field column μ0H (default: the first; T, or Oe).' },
+          momentColumn: { type: 'string', doc: 'Moment column (default: the second; muB per ion).' },
+          errorColumn: { type: 'string', doc: 'Error column (default: the third); same unit as the values.' },
+          direction: { type: 'list', of: { type: 'number', doc: 'Component.' }, minItems: 3, maxItems: 3, doc: 'Field direction [x, y, z] in the crystal frame (default: powder).' },
+          sites: { type: 'choice', values: ['single', 'pyrochlore'], default: 'single', doc: 'Site frames: one site, or the four ⟨111⟩ frames of the pyrochlore lattice.' },
+          meanField: { type: 'number', default: 0, doc: 'Molecular-field constant λ (mol/emu per mole of ions): 1/χ = 1/χ_CEF − λ.' },
+          fitScale: { type: 'boolean', default: false, doc: 'Fit a scale factor for this dataset (e.g. an uncertain sample mass).' },
+          weight: { type: 'number', min: 0, default: 1, doc: 'Relative weight of this dataset in χ².' },
+          perFormulaUnit: { type: 'boolean', default: false, doc: 'The data are per mole of formula units: divided by the sample’s ions per formula unit.' },
+        },
+      },
+    },
     fitWidth: { type: 'boolean', default: false, doc: 'Fit one intrinsic (Lorentzian) FWHM shared by all spectra (bounded to 0 … 20 meV).' },
     widthStart: { type: 'quantity', unit: 'meV', min: 0, max: 20, default: '0.2 meV', doc: 'Starting intrinsic width when fitWidth is true.' },
     starts: { type: 'integer', min: 0, max: 10000, default: 0, doc: 'Random starts of the global search besides the start parameters (0: a local fit only).' },
@@ -161,10 +227,14 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
     mcmcSteps: { type: 'integer', min: 0, max: 1000000, default: 0, doc: 'Ensemble MCMC steps per walker after burn-in (0: no sampling).' },
     mcmcWalkers: { type: 'integer', min: 2, max: 1000, doc: 'Number of walkers (default max(2·free + 2, 16)).' },
   },
-  reads: ['references'],
+  reads: ['sample', 'references'],
   writes: 'result',
   check(input, ctx) {
-    if ((input.peaks ?? []).length === 0 && (input.spectra ?? []).length === 0) ctx.fail('peaks', input.peaks, 'at least one peak or spectrum (no data to fit)');
+    if ([input.peaks, input.spectra, input.susceptibility, input.magnetization].every((list) => (list ?? []).length === 0))
+      ctx.fail('peaks', input.peaks, 'at least one peak, spectrum, susceptibility or magnetization dataset (no data to fit)');
+    (input.magnetization ?? []).forEach((d, i) => {
+      if (!(d.temperature > 0)) ctx.fail(`magnetization.${i}.temperature`, d.temperature, 'a temperature > 0 K');
+    });
     (input.peaks ?? []).forEach((p, i) => {
       if ((p.from === undefined) !== (p.to === undefined)) ctx.fail(`peaks.${i}.from`, p.from, 'both from and to (a pinned transition), or neither');
     });
@@ -209,9 +279,40 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
         qDirection: s.qDirection as [number, number, number] | undefined,
       };
     });
+    const perIon = (d: BulkInput) => (d.perFormulaUnit ? 1 / (ctx.sampleIfDefined()?.ionsPerFormulaUnit ?? 1) : 1);
+    const direction = (d: BulkInput) => (d.direction ? ([...d.direction] as [number, number, number]) : ('powder' as const));
+    const susceptibility: SusceptibilityObservation[] = (input.susceptibility ?? []).map((d, i) => {
+      const f = `susceptibility.${i}`;
+      const scale = perIon(d);
+      return {
+        temperaturesK: dataColumn(ctx, d.data, d.temperatureColumn, 0, `${f}.temperatureColumn`, 'K'),
+        chiEmuPerMol: dataColumn(ctx, d.data, d.chiColumn, 1, `${f}.chiColumn`, 'emu/mol', susceptibilityToEmuPerMol).map((v) => v * scale),
+        errorEmuPerMol: dataColumn(ctx, d.data, d.errorColumn, 2, `${f}.errorColumn`, 'emu/mol', susceptibilityToEmuPerMol).map((v) => v * scale),
+        direction: direction(d),
+        sites: d.sites,
+        meanFieldMolPerEmu: d.meanField,
+        fitScale: d.fitScale,
+        weight: d.weight,
+      };
+    });
+    const magnetization: MagnetizationObservation[] = (input.magnetization ?? []).map((d, i) => {
+      const f = `magnetization.${i}`;
+      const scale = perIon(d);
+      return {
+        temperatureK: d.temperature,
+        fieldsT: dataColumn(ctx, d.data, d.fieldColumn, 0, `${f}.fieldColumn`, 'T'),
+        momentMuB: dataColumn(ctx, d.data, d.momentColumn, 1, `${f}.momentColumn`, 'muB').map((v) => v * scale),
+        errorMuB: dataColumn(ctx, d.data, d.errorColumn, 2, `${f}.errorColumn`, 'muB').map((v) => v * scale),
+        direction: direction(d),
+        sites: d.sites,
+        meanFieldMolPerEmu: d.meanField,
+        fitScale: d.fitScale,
+        weight: d.weight,
+      };
+    });
     const bounds = input.bounds ? Object.fromEntries(Object.entries(input.bounds).map(([k, v]) => [k, [v[0]!, v[1]!] as [number, number]])) : undefined;
     const spec: CefFitSpec = {
-      ion: start.ion, symmetry: start.symmetry, start: start.parametersMeV, free: input.free, bounds, peaks, spectra,
+      ion: start.ion, symmetry: start.symmetry, start: start.parametersMeV, free: input.free, bounds, peaks, spectra, susceptibility, magnetization,
       fitIntrinsicWidth: input.fitWidth, intrinsicWidthStartMeV: input.widthStart,
     };
     const report = fitCef(spec, { starts: input.starts, seed: ctx.seed, chi2Margin: input.chi2Margin, errorScaling: input.errorScaling, task: ctx.task });
@@ -234,7 +335,24 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
         ...solutionJson(best),
         freeKeys: [...best.freeKeys],
         correlation: best.correlation.map((row) => row.map((v) => (Number.isFinite(v) ? v : 0))),
-        chi2ByDataset: { peaks: best.chi2ByDataset.peaks, spectra: [...best.chi2ByDataset.spectra] },
+        chi2ByDataset: {
+          peaks: best.chi2ByDataset.peaks,
+          spectra: [...best.chi2ByDataset.spectra],
+          susceptibility: [...best.chi2ByDataset.susceptibility],
+          magnetization: [...best.chi2ByDataset.magnetization],
+        },
+        residuals: {
+          peaks: { energy: [...best.residualsByDataset.peaks.energy], intensity: [...best.residualsByDataset.peaks.intensity] },
+          spectra: spectra.map((sp, k) => ({
+            temperatureK: sp.temperatureK,
+            incidentEnergyMeV: sp.incidentEnergyMeV ?? null,
+            energiesMeV: [...sp.energiesMeV],
+            values: [...best.residualsByDataset.spectra[k]!],
+          })),
+          susceptibility: susceptibility.map((d, k) => ({ temperaturesK: [...d.temperaturesK], values: [...best.residualsByDataset.susceptibility[k]!] })),
+          magnetization: magnetization.map((d, k) => ({ temperatureK: d.temperatureK, fieldsT: [...d.fieldsT], values: [...best.residualsByDataset.magnetization[k]!] })),
+        },
+        bulkScales: { susceptibility: [...best.bulkScales.susceptibility], magnetization: [...best.bulkScales.magnetization] },
         peaks: best.peakAssignments.map((a, i) => ({
           fromLevel: a.fromLevel,
           toLevel: a.toLevel,
@@ -250,6 +368,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
       startsRun: report.startsRun,
       distinctMinimaFound: report.distinctMinimaFound,
       hamiltonianEvaluations: report.hamiltonianEvaluations,
+      twinFlippedKeys: [...report.twinFlippedKeys],
       warnings: [...report.warnings],
       posterior,
     };
@@ -261,11 +380,23 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
     const minimaColumns = [{ name: '#' }, { name: 'χ²_red' }, { name: 'hits' }, ...b.freeKeys.map((k) => ({ name: k, unit: 'meV' }))];
     const minimaRows = r.minima.map((m, i) => [String(i + 1), m.chi2Reduced, String(m.hits), ...b.freeKeys.map((k) => m.B[k] ?? 0)]);
     const summary = `cef fit ${info.name}: ${r.ion} in ${r.symmetry}, χ²_red = ${formatNumber(b.chi2Reduced, 4)} (ν = ${b.degreesOfFreedom}); ${r.minima.length} minimum(a) within the margin of ${r.distinctMinimaFound} found from ${r.startsRun} start(s)`;
-    const text = [summary, textTable(paramColumns, paramRows, 30), 'minima:', textTable(minimaColumns, minimaRows, 10), ...r.warnings.map((w) => `warning: ${w}`)].join('\n');
+    const datasetEntries: [string, string][] = [
+      ['χ² (peaks)', formatNumber(b.chi2ByDataset.peaks)],
+      ...b.residuals.spectra.map((sp, i): [string, string] => {
+        const rms = Math.sqrt(b.chi2ByDataset.spectra[i]! / sp.values.length);
+        const worst = sp.values.reduce((m, v) => Math.max(m, Math.abs(v)), 0);
+        return [`χ² (spectrum ${i}, ${formatNumber(sp.temperatureK, 4)} K)`, `${formatNumber(b.chi2ByDataset.spectra[i]!)} over ${sp.values.length} points; rms residual ${formatNumber(rms, 3)} σ, largest ${formatNumber(worst, 3)} σ`];
+      }),
+      ...b.chi2ByDataset.susceptibility.map((c, i): [string, string] => [`χ² (χ(T) ${i})`, `${formatNumber(c)} over ${b.residuals.susceptibility[i]!.values.length} points; scale ${formatNumber(b.bulkScales.susceptibility[i]!, 5)}`]),
+      ...b.chi2ByDataset.magnetization.map((c, i): [string, string] => [`χ² (M(B) ${i}, ${formatNumber(b.residuals.magnetization[i]!.temperatureK, 4)} K)`, `${formatNumber(c)} over ${b.residuals.magnetization[i]!.values.length} points; scale ${formatNumber(b.bulkScales.magnetization[i]!, 5)}`]),
+    ];
+    const text = [
+      summary, textTable(paramColumns, paramRows, 30), 'minima:', textTable(minimaColumns, minimaRows, 10),
+      ...datasetEntries.map(([k, v]) => `${k}: ${v}`), ...r.warnings.map((w) => `warning: ${w}`),
+    ].join('\n');
     const entries: [string, string][] = [
       ['levels', b.levelsMeV.map((e) => formatNumber(e, 4)).join(', ') + ' meV'],
-      ['χ² (peaks)', formatNumber(b.chi2ByDataset.peaks)],
-      ...b.chi2ByDataset.spectra.map((c, i): [string, string] => [`χ² (spectrum ${i})`, formatNumber(c)]),
+      ...datasetEntries,
       ['H_CEF evaluations', String(r.hamiltonianEvaluations)],
     ];
     if (b.intrinsicWidth) entries.push(['intrinsic FWHM', `${formatNumber(b.intrinsicWidth.valueMeV, 4)} ± ${formatNumber(b.intrinsicWidth.errorMeV, 2)} meV`]);
@@ -280,8 +411,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
       '</div>',
     ].join('');
     const values = b.peaks.map((p, i) => ({ peak: i, computedMeV: p.computedMeV, residual: p.energyResidual }));
-    const vegaLite = {
-      $schema: 'https://vega.github.io/schema/vega-lite/v5.json',
+    const peakPlot = {
       description: `peak residuals of ${info.name}`,
       width: 320,
       height: 200,
@@ -293,6 +423,25 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
         tooltip: [{ field: 'peak', type: 'quantitative' }, { field: 'residual', type: 'quantitative' }],
       },
     };
+    // Residuals of each spectrum against energy, one colour per dataset.
+    const spectrumValues = b.residuals.spectra.flatMap((sp, k) =>
+      sp.energiesMeV.map((e, i) => ({ dataset: `spectrum ${k} (${formatNumber(sp.temperatureK, 4)} K)`, energyMeV: e, residual: sp.values[i] })),
+    );
+    const spectrumPlot = {
+      description: `spectrum residuals of ${info.name}, per dataset`,
+      width: 320,
+      height: 200,
+      data: { values: spectrumValues },
+      mark: { type: 'line', point: true },
+      encoding: {
+        x: { field: 'energyMeV', type: 'quantitative', title: 'E (meV)' },
+        y: { field: 'residual', type: 'quantitative', title: '√w (model − data)/σ' },
+        color: { field: 'dataset', type: 'nominal' },
+      },
+    };
+    const schema = 'https://vega.github.io/schema/vega-lite/v5.json';
+    const plots = [...(values.length ? [peakPlot] : []), ...(spectrumValues.length ? [spectrumPlot] : [])];
+    const vegaLite = plots.length > 1 ? { $schema: schema, vconcat: plots } : { $schema: schema, ...(plots[0] ?? peakPlot) };
     return { text, html, vegaLite };
   },
 });
