@@ -1,4 +1,5 @@
-"""Shared set-up for the Python kernel checks: build-free install of our kernelspec into a temporary prefix.
+"""Shared set-up for the Python kernel checks: build-free install of our kernelspec into a temporary prefix, a
+started kernel with its client, one cell run, and a scratch copy of the fixtures.
 
 The kernel runs from the esbuild bundle (packages/cli/dist/multiplet.js, made by `npm run build`); the
 kernelspec is written by our own `multiplet kernel install --prefix`, and JUPYTER_PATH points Debian's
@@ -11,10 +12,13 @@ import subprocess
 import tempfile
 from pathlib import Path
 
+from jupyter_client.manager import KernelManager
+
 REPO = Path(__file__).resolve().parents[2]
 CLI = REPO / "packages" / "cli" / "bin" / "multiplet.mjs"
 BUNDLE = REPO / "packages" / "cli" / "dist" / "multiplet.js"
 KERNEL_NAME = "multiplet-test"
+FIXTURES = Path(__file__).resolve().parent / "fixtures"
 
 
 class InstalledKernel:
@@ -64,3 +68,53 @@ def iopub_until_idle(kc, msg_id, timeout=15):
         seen.append(msg)
         if msg["msg_type"] == "status" and msg["content"]["execution_state"] == "idle":
             return seen
+
+
+def run_cell(kc, code):
+    """Execute code: the shell reply and the IOPub messages parented to it, up to idle."""
+    msg_id = kc.execute(code)
+    reply = shell_reply(kc, msg_id)
+    return reply, iopub_until_idle(kc, msg_id)
+
+
+def start_kernel(kernel_name):
+    """Start the kernel through jupyter_client's KernelManager; returns (km, kc) with the client's channels ready."""
+    km = KernelManager(kernel_name=kernel_name)
+    km.start_kernel()
+    kc = km.client()
+    kc.start_channels()
+    kc.wait_for_ready(timeout=30)
+    return km, kc
+
+
+def stop_kernel(km, kc):
+    """Close the client's channels and shut the kernel down at once (unless it was shut down already)."""
+    kc.stop_channels()
+    if km.has_kernel:
+        km.shutdown_kernel(now=True)
+
+
+class KernelPerClass:
+    """Mixin for a unittest.TestCase: one installed kernelspec and one running kernel (cls.km, cls.kc) per class."""
+
+    @classmethod
+    def setUpClass(cls):
+        cls.installed = InstalledKernel()
+        cls.km, cls.kc = start_kernel(cls.installed.name)
+
+    @classmethod
+    def tearDownClass(cls):
+        stop_kernel(cls.km, cls.kc)
+        cls.installed.remove()
+
+    def run_cell(self, code):
+        return run_cell(self.kc, code)
+
+
+def fixture_workdir(prefix):
+    """A new temporary directory holding a copy of the fixture files (the caller removes it)."""
+    workdir = tempfile.mkdtemp(prefix=prefix)
+    for f in FIXTURES.iterdir():
+        if f.is_file():
+            shutil.copy(f, workdir)
+    return workdir

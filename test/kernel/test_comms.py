@@ -4,27 +4,10 @@ target answered with comm_close, and comm_close."""
 import unittest
 from queue import Empty
 
-from jupyter_client.manager import KernelManager
-
-from kernel_env import InstalledKernel, iopub_until_idle, shell_reply
+from kernel_env import KernelPerClass, iopub_until_idle, shell_reply
 
 
-class CommTests(unittest.TestCase):
-    @classmethod
-    def setUpClass(cls):
-        cls.installed = InstalledKernel()
-        cls.km = KernelManager(kernel_name=cls.installed.name)
-        cls.km.start_kernel()
-        cls.kc = cls.km.client()
-        cls.kc.start_channels()
-        cls.kc.wait_for_ready(timeout=30)
-
-    @classmethod
-    def tearDownClass(cls):
-        cls.kc.stop_channels()
-        cls.km.shutdown_kernel(now=True)
-        cls.installed.remove()
-
+class CommTests(KernelPerClass, unittest.TestCase):
     def send_shell(self, msg_type, content):
         msg = self.kc.session.msg(msg_type, content)
         self.kc.shell_channel.send(msg)

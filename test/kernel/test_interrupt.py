@@ -8,9 +8,9 @@ import signal
 import time
 import unittest
 
-from jupyter_client.manager import KernelManager, start_new_kernel
+from jupyter_client.manager import start_new_kernel
 
-from kernel_env import InstalledKernel, iopub_until_idle, shell_reply
+from kernel_env import KernelPerClass, iopub_until_idle, run_cell, shell_reply
 
 # A script cell that never finishes on its own: synchronous, so only an interrupt can end it.
 ENDLESS = "let spins = 0\nwhile (true) { spins++ }"
@@ -53,27 +53,7 @@ LONG_TYPED = {
 STATE_DUMP = "JSON.stringify({ sample: state.sample, names: state.names, results: state.results, info: state.info })"
 
 
-class InterruptTests(unittest.TestCase):
-    @classmethod
-    def setUpClass(cls):
-        cls.installed = InstalledKernel()
-        cls.km = KernelManager(kernel_name=cls.installed.name)
-        cls.km.start_kernel()
-        cls.kc = cls.km.client()
-        cls.kc.start_channels()
-        cls.kc.wait_for_ready(timeout=30)
-
-    @classmethod
-    def tearDownClass(cls):
-        cls.kc.stop_channels()
-        cls.km.shutdown_kernel(now=True)
-        cls.installed.remove()
-
-    def run_cell(self, code):
-        msg_id = self.kc.execute(code)
-        reply = shell_reply(self.kc, msg_id)
-        return reply, iopub_until_idle(self.kc, msg_id)
-
+class InterruptTests(KernelPerClass, unittest.TestCase):
     def interrupt_endless_cell(self, interrupt, code=ENDLESS):
         self.run_cell('[sample] before\ncompound: Yb2Ti2O7\nion: Yb3+')
         msg_id = self.kc.execute(code)
@@ -112,17 +92,13 @@ class InterruptTests(unittest.TestCase):
         # A kernel of its own: the other tests expect a state holding only their own sample.
         km, kc = start_new_kernel(kernel_name=self.installed.name)
         try:
-            def run(code):
-                msg_id = kc.execute(code)
-                return shell_reply(kc, msg_id), iopub_until_idle(kc, msg_id)
-
             def value(outputs):
                 return [m for m in outputs if m["msg_type"] == "execute_result"][0]["content"]["data"]["text/plain"]
 
             for cell in ER_CELLS:
-                reply, _ = run(cell)
+                reply, _ = run_cell(kc, cell)
                 self.assertEqual(reply["content"]["status"], "ok", reply["content"])
-            reply, outputs = run(STATE_DUMP)
+            reply, outputs = run_cell(kc, STATE_DUMP)
             before = value(outputs)
             self.assertIn("Er2Ti2O7", before)
             self.assertIn("cefStart", before)
@@ -146,7 +122,7 @@ class InterruptTests(unittest.TestCase):
                     self.assertEqual(kinds.count("error"), 1)
                     self.assertEqual(kinds[-1], "error")
                     # The next cell runs at once and reads exactly the state from before the interrupted cell.
-                    reply, outputs = run(STATE_DUMP)
+                    reply, outputs = run_cell(kc, STATE_DUMP)
                     self.assertEqual(reply["content"]["status"], "ok")
                     self.assertEqual(value(outputs), before)
             self.assertTrue(km.is_alive())

@@ -7,18 +7,13 @@ from pathlib import Path
 import nbformat
 from nbclient import NotebookClient
 
-from kernel_env import InstalledKernel
-
-FIXTURES = Path(__file__).resolve().parent / "fixtures"
+from kernel_env import InstalledKernel, fixture_workdir
 
 
 def execute_with_nbclient(notebook_name, kernel_name, timeout=60, allow_errors=False):
     """Run a fixture notebook in a scratch copy of the fixtures directory; returns the executed notebook."""
-    workdir = tempfile.mkdtemp(prefix="multiplet-nbclient-")
+    workdir = fixture_workdir("multiplet-nbclient-")
     try:
-        for f in FIXTURES.iterdir():
-            if f.is_file():
-                shutil.copy(f, workdir)
         nb = nbformat.read(str(Path(workdir) / notebook_name), as_version=4)
         client = NotebookClient(nb, kernel_name=kernel_name, timeout=timeout, allow_errors=allow_errors, resources={"metadata": {"path": workdir}})
         client.execute()

@@ -3,32 +3,10 @@ up and the next cell runs with the state intact."""
 import time
 import unittest
 
-from jupyter_client.manager import KernelManager
-
-from kernel_env import InstalledKernel, iopub_until_idle, shell_reply
+from kernel_env import InstalledKernel, KernelPerClass, run_cell, start_kernel, stop_kernel
 
 
-class RobustnessTests(unittest.TestCase):
-    @classmethod
-    def setUpClass(cls):
-        cls.installed = InstalledKernel()
-        cls.km = KernelManager(kernel_name=cls.installed.name)
-        cls.km.start_kernel()
-        cls.kc = cls.km.client()
-        cls.kc.start_channels()
-        cls.kc.wait_for_ready(timeout=30)
-
-    @classmethod
-    def tearDownClass(cls):
-        cls.kc.stop_channels()
-        cls.km.shutdown_kernel(now=True)
-        cls.installed.remove()
-
-    def run_cell(self, code):
-        msg_id = self.kc.execute(code)
-        reply = shell_reply(self.kc, msg_id)
-        return reply, iopub_until_idle(self.kc, msg_id)
-
+class RobustnessTests(KernelPerClass, unittest.TestCase):
     def test_unhandled_rejections_do_not_kill_the_kernel(self):
         self.run_cell("[sample] kept\ncompound: Yb2Ti2O7\nion: Yb3+")
         for code in ['Promise.reject(new Error("nobody catches this")); 1', 'new Promise((_, reject) => reject(new Error("later")))']:
@@ -50,22 +28,14 @@ class LifecycleTests(unittest.TestCase):
 
     def setUp(self):
         self.installed = InstalledKernel()
-        self.km = KernelManager(kernel_name=self.installed.name)
-        self.km.start_kernel()
-        self.kc = self.km.client()
-        self.kc.start_channels()
-        self.kc.wait_for_ready(timeout=30)
+        self.km, self.kc = start_kernel(self.installed.name)
 
     def tearDown(self):
-        self.kc.stop_channels()
-        if self.km.has_kernel:
-            self.km.shutdown_kernel(now=True)
+        stop_kernel(self.km, self.kc)
         self.installed.remove()
 
     def run_cell(self, code):
-        msg_id = self.kc.execute(code)
-        reply = shell_reply(self.kc, msg_id)
-        return reply, iopub_until_idle(self.kc, msg_id)
+        return run_cell(self.kc, code)
 
     def test_restart_then_shutdown(self):
         self.run_cell("[sample] before\ncompound: Yb2Ti2O7\nion: Yb3+")

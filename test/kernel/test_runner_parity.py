@@ -5,14 +5,13 @@ Compared after dropping what is host-specific by design: `transient` (display id
 import json
 import shutil
 import subprocess
-import tempfile
 import unittest
 from pathlib import Path
 
 import nbformat
 
-from kernel_env import CLI, InstalledKernel
-from test_nbclient import FIXTURES, execute_with_nbclient
+from kernel_env import CLI, InstalledKernel, fixture_workdir
+from test_nbclient import execute_with_nbclient
 
 
 def comparable_outputs(nb):
@@ -41,11 +40,8 @@ class RunnerParityTests(unittest.TestCase):
         cls.installed.remove()
 
     def run_headless(self, notebook_name, *flags, expect_status=0):
-        workdir = tempfile.mkdtemp(prefix="multiplet-runner-")
+        workdir = fixture_workdir("multiplet-runner-")
         try:
-            for f in FIXTURES.iterdir():
-                if f.is_file():
-                    shutil.copy(f, workdir)
             out = Path(workdir) / "executed.ipynb"
             done = subprocess.run(
                 [shutil.which("node"), str(CLI), "run", str(Path(workdir) / notebook_name), "--out", str(out), *flags],

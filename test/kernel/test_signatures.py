@@ -6,35 +6,21 @@ from queue import Empty
 import unittest
 
 import zmq
-from jupyter_client.manager import KernelManager
 from jupyter_client.session import Session
 
-from kernel_env import InstalledKernel, iopub_until_idle, shell_reply
+from kernel_env import KernelPerClass, iopub_until_idle, shell_reply
 
 
-class SignatureTests(unittest.TestCase):
+class SignatureTests(KernelPerClass, unittest.TestCase):
     @classmethod
     def setUpClass(cls):
-        cls.installed = InstalledKernel()
-        cls.km = KernelManager(kernel_name=cls.installed.name)
-        cls.km.start_kernel()
-        cls.kc = cls.km.client()
-        cls.kc.start_channels()
-        cls.kc.wait_for_ready(timeout=30)
+        super().setUpClass()
         cls.context = zmq.Context()
 
     @classmethod
     def tearDownClass(cls):
-        cls.kc.stop_channels()
-        cls.km.shutdown_kernel(now=True)
         cls.context.destroy(linger=0)
-        cls.installed.remove()
-
-    def execute(self, code):
-        msg_id = self.kc.execute(code)
-        reply = shell_reply(self.kc, msg_id)
-        outputs = iopub_until_idle(self.kc, msg_id)
-        return reply, outputs
+        super().tearDownClass()
 
     def raw_socket(self, port_name):
         info = self.km.get_connection_info()
@@ -55,7 +41,7 @@ class SignatureTests(unittest.TestCase):
             self.assertNotIn(msg["parent_header"].get("msg_id"), msg_ids)
 
     def test_wrong_unsigned_and_tampered_messages_change_nothing(self):
-        reply, _ = self.execute("state.names.length")
+        reply, _ = self.run_cell("state.names.length")
         count_before = reply["content"]["execution_count"]
         forged_code = "[sample] forged\ncompound: Forged\nion: Yb3+"
 
@@ -79,13 +65,13 @@ class SignatureTests(unittest.TestCase):
         self.assert_silent(sock, ids)
         sock.close()
 
-        reply, outputs = self.execute("state.names.length")
+        reply, outputs = self.run_cell("state.names.length")
         self.assertEqual(reply["content"]["execution_count"], count_before + 1)
         results = [o for o in outputs if o["msg_type"] == "execute_result"]
         self.assertEqual(results[0]["content"]["data"]["text/plain"], "0")
 
     def test_a_replayed_message_runs_once(self):
-        reply, _ = self.execute("state.names.length")
+        reply, _ = self.run_cell("state.names.length")
         count_before = reply["content"]["execution_count"]
         sock = self.raw_socket("shell_port")
         session = Session(key=self.km.session.key)
@@ -98,7 +84,7 @@ class SignatureTests(unittest.TestCase):
         sock.send_multipart(frames)
         self.assertEqual(sock.poll(1500), 0, "a replayed message was executed")
         sock.close()
-        reply, _ = self.execute("1")
+        reply, _ = self.run_cell("1")
         self.assertEqual(reply["content"]["execution_count"], count_before + 2)
 
     def test_badly_signed_shutdown_does_not_stop_the_kernel(self):
@@ -109,7 +95,7 @@ class SignatureTests(unittest.TestCase):
         self.assert_silent(sock, [m["header"]["msg_id"]], seconds=1.0)
         sock.close()
         self.assertTrue(self.km.is_alive())
-        reply, _ = self.execute("2 * 21")
+        reply, _ = self.run_cell("2 * 21")
         self.assertEqual(reply["content"]["status"], "ok")
 
 
