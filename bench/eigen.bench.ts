@@ -7,27 +7,15 @@
  */
 import { spawnSync } from 'node:child_process';
 import * as math from 'mathjs';
-import { hermitianEigenBatch, hermitianEigen, zeros, type ComplexMatrix } from '@multiplet/physics/linalg';
+import { hermitianEigenBatch, hermitianEigen } from '@multiplet/physics/linalg';
 import { createRandom } from '@multiplet/physics/random';
+import { randomHermitian } from '../test/physics/linalg/randomHermitian';
 
 const N = 16;
 const COUNT = 20_000;
 const MATHJS_COUNT = 40;
 const REPEATS = 5;
 
-function randomHermitian(n: number, rng: ReturnType<typeof createRandom>): ComplexMatrix {
-  const a = zeros(n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j <= i; j++) {
-      const x = rng.normal();
-      const y = i === j ? 0 : rng.normal();
-      a.re[i * n + j] = x;
-      a.im[i * n + j] = y;
-      a.re[j * n + i] = x;
-      a.im[j * n + i] = -y;
-    }
-  return a;
-}
 
 const rng = createRandom(16);
 const matrices = Array.from({ length: COUNT }, () => randomHermitian(N, rng));

@@ -17,20 +17,8 @@ import {
 } from '@multiplet/physics/linalg';
 import { createRandom, type Random } from '@multiplet/physics/random';
 import { InputError } from '@multiplet/physics/errors';
+import { randomHermitian } from './randomHermitian';
 
-function randomHermitian(n: number, rng: Random, scale = 1): ComplexMatrix {
-  const a = zeros(n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j <= i; j++) {
-      const x = scale * rng.normal();
-      const y = i === j ? 0 : scale * rng.normal();
-      a.re[i * n + j] = x;
-      a.im[i * n + j] = y;
-      a.re[j * n + i] = x;
-      a.im[j * n + i] = -y;
-    }
-  return a;
-}
 
 /** A random unitary from the eigenvectors of a random Hermitian matrix. */
 function randomUnitary(n: number, rng: Random): ComplexMatrix {

@@ -1,21 +1,9 @@
 /** Batch diagonalisation: identical to single solves, mixed dimensions, values-only mode, error naming. */
 import { describe, it, expect } from 'vitest';
 import { hermitianEigen, hermitianEigenBatch, zeros, identity, fromArrays, type ComplexMatrix } from '@multiplet/physics/linalg';
-import { createRandom, type Random } from '@multiplet/physics/random';
+import { createRandom } from '@multiplet/physics/random';
+import { randomHermitian } from './randomHermitian';
 
-function randomHermitian(n: number, rng: Random): ComplexMatrix {
-  const a = zeros(n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j <= i; j++) {
-      const x = rng.normal();
-      const y = i === j ? 0 : rng.normal();
-      a.re[i * n + j] = x;
-      a.im[i * n + j] = y;
-      a.re[j * n + i] = x;
-      a.im[j * n + i] = -y;
-    }
-  return a;
-}
 
 function maxDiff(a: ComplexMatrix, b: ComplexMatrix): number {
   let w = 0;
