@@ -261,27 +261,9 @@ function crystalCurve(
 function selfConsistent(f: (bEff: number) => number, b: number, lambda: number, saturation: number): number {
   const tolerance = 1e-12 * Math.max(1, saturation);
   const g = (m: number) => m - f(b + lambda * m);
-  const illinois = (lo: number, hi: number, glo: number, ghi: number): number => {
-    let side = 0;
-    for (let iter = 0; iter < 200; iter++) {
-      const m = (lo * ghi - hi * glo) / (ghi - glo);
-      const gm = g(m);
-      if (Math.abs(gm) <= tolerance || hi - lo <= tolerance) return m;
-      if (gm > 0) {
-        hi = m; ghi = gm;
-        if (side === 1) glo /= 2;
-        side = 1;
-      } else {
-        lo = m; glo = gm;
-        if (side === -1) ghi /= 2;
-        side = -1;
-      }
-    }
-    return (lo + hi) / 2;
-  };
   if (lambda < 0) {
     const lo = -saturation - 1e-9, hi = saturation + 1e-9;
-    return illinois(lo, hi, g(lo), g(hi));
+    return illinoisRoot(g, lo, hi, g(lo), g(hi), tolerance);
   }
   // Work on the field's side: for B < 0 solve the mirrored problem (M(−B) = −M(B)).
   const sign = b < 0 ? -1 : 1;
@@ -297,15 +279,15 @@ function selfConsistent(f: (bEff: number) => number, b: number, lambda: number, 
   const step = saturation / 64;
   for (let lower = upper - step; lower >= -saturation - step; lower -= step) {
     const hLower = h(lower);
-    if (hLower <= 0) return sign * (hLower === 0 ? lower : illinoisMirrored(h, lower, upper, hLower, hUpper, tolerance));
+    if (hLower <= 0) return sign * (hLower === 0 ? lower : illinoisRoot(h, lower, upper, hLower, hUpper, tolerance));
     upper = lower;
     hUpper = hLower;
   }
   return sign * upper;
 }
 
-/** Illinois regula falsi for h on [lo, hi] with h(lo) ≤ 0 ≤ h(hi). */
-function illinoisMirrored(h: (m: number) => number, lo: number, hi: number, hlo: number, hhi: number, tolerance: number): number {
+/** Illinois regula falsi for h on [lo, hi] with h(lo) ≤ 0 ≤ h(hi) (both branches of selfConsistent use it). */
+function illinoisRoot(h: (m: number) => number, lo: number, hi: number, hlo: number, hhi: number, tolerance: number): number {
   let side = 0;
   for (let iter = 0; iter < 200; iter++) {
     const m = (lo * hhi - hi * hlo) / (hhi - hlo);
