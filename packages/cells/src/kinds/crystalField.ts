@@ -12,7 +12,7 @@
  * The ion and the site symmetry default to the sample's; parameters the symmetry forbids are an error at their
  * line. Bare numbers in B are in `unit` (default meV).
  */
-import { getIon, ION_NAMES } from '@multiplet/physics/ions';
+import { ION_NAMES } from '@multiplet/physics/ions';
 import { InputError } from '@multiplet/physics/errors';
 import {
   SITE_SYMMETRIES,
@@ -25,6 +25,7 @@ import {
 } from '@multiplet/physics/cef';
 import { KELVIN_IN_MEV, INVERSE_CM_IN_MEV } from '@multiplet/physics/units';
 import { defineKind } from './types';
+import { checkIonName, requireIon } from './ionField';
 import { escapeHtml, formatNumber, htmlKeyValue, htmlTable, textTable } from '../render/format';
 
 interface CrystalFieldInput {
@@ -126,21 +127,13 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
   writes: 'result',
   check(input, ctx) {
     if (input.B === undefined && input.base === undefined) ctx.fail('B', undefined, 'Stevens parameters such as "B20: -0.35 meV" (or a base crystal-field result to start from)');
-    if (input.ion !== undefined) {
-      try {
-        getIon(input.ion);
-      } catch (error) {
-        if (error instanceof InputError) ctx.fail('ion', input.ion, error.expected);
-        throw error;
-      }
-    }
+    checkIonName(input.ion, ctx);
   },
   run(input, ctx) {
     const sample = ctx.sampleIfDefined();
     const base = input.base === undefined ? undefined : ctx.result<CrystalFieldResult>(input.base);
     const ionName = input.ion ?? base?.ion ?? sample?.ion;
-    if (ionName === undefined) ctx.fail('ion', undefined, 'an ion (no [sample] cell ran yet to take it from)');
-    const ion = getIon(ionName!);
+    const ion = requireIon(ionName, ctx);
     const symmetry = input.symmetry ?? base?.symmetry ?? sample?.siteSymmetry ?? 'none';
     let parameters: Record<string, number>;
     try {

@@ -10,9 +10,9 @@
  *   shielding: { sigma2: 0.5 }
  */
 import { pointChargeParameters, solveCef, allowedParameters, SITE_SYMMETRIES } from '@multiplet/physics/cef';
-import { getIon, ION_NAMES } from '@multiplet/physics/ions';
-import { InputError } from '@multiplet/physics/errors';
+import { ION_NAMES } from '@multiplet/physics/ions';
 import { defineKind } from './types';
+import { checkIonName, requireIon } from './ionField';
 import { escapeHtml, formatNumber, htmlKeyValue, htmlTable, textTable } from '../render/format';
 
 interface Ligand { x: number; y: number; z: number; charge: number }
@@ -71,20 +71,12 @@ export const pointChargeKind = defineKind<PointChargeInput, PointChargeCellResul
   reads: ['sample'],
   writes: 'result',
   check(input, ctx) {
-    if (input.ion !== undefined) {
-      try {
-        getIon(input.ion);
-      } catch (error) {
-        if (error instanceof InputError) ctx.fail('ion', input.ion, error.expected);
-        throw error;
-      }
-    }
+    checkIonName(input.ion, ctx);
   },
   run(input, ctx) {
     const sample = ctx.sampleIfDefined();
     const ionName = input.ion ?? sample?.ion;
-    if (ionName === undefined) ctx.fail('ion', undefined, 'an ion (no [sample] cell ran yet to take it from)');
-    const ion = getIon(ionName!);
+    const ion = requireIon(ionName, ctx);
     const symmetry = input.symmetry ?? sample?.siteSymmetry;
     const shielding = input.shielding ?? { sigma2: 0, sigma4: 0, sigma6: 0 };
     const parameters = pointChargeParameters(

@@ -13,8 +13,8 @@
  */
 import { getIon, ION_NAMES } from '@multiplet/physics/ions';
 import { SITE_SYMMETRIES } from '@multiplet/physics/cef';
-import { InputError } from '@multiplet/physics/errors';
 import { defineKind, type SampleResult } from './types';
+import { checkIonName } from './ionField';
 import { formatQuantity, htmlKeyValue } from '../render/format';
 
 interface SampleInput {
@@ -52,12 +52,7 @@ export const sampleKind = defineKind<SampleInput, SampleResult>({
   reads: [],
   writes: 'sample',
   check(input, ctx) {
-    try {
-      getIon(input.ion);
-    } catch (error) {
-      if (error instanceof InputError) ctx.fail('ion', input.ion, error.expected);
-      throw error;
-    }
+    checkIonName(input.ion, ctx);
   },
   run(input) {
     return {
