@@ -22,11 +22,31 @@ import {
   normalizeCefParameters,
   solveCef,
   describeLevels,
+  type CefSolution,
 } from '@multiplet/physics/cef';
 import { KELVIN_IN_MEV, INVERSE_CM_IN_MEV } from '@multiplet/physics/units';
 import { defineKind } from './types';
 import { checkIonName, requireIon } from './ionField';
 import { escapeHtml, formatNumber, htmlKeyValue, htmlTable, textTable } from '../render/format';
+
+/**
+ * The ground doublet of a CEF solution as JSON (no gap above a lone doublet: gapMeV null, not Infinity); the
+ * crystal-field cell and `multiplet compute crystal-field` both report it this way.
+ */
+export function groundDoubletJson(gd: CefSolution['groundDoublet']) {
+  return gd
+    ? {
+        gParallel: gd.gParallel,
+        gPerpendicular: gd.gPerpendicular,
+        gTensor: gd.gTensor,
+        gPrincipalValues: gd.gPrincipalValues,
+        gPrincipalAxes: gd.gPrincipalAxes,
+        momentParallelMuB: gd.momentParallelMuB,
+        kramers: gd.kramers,
+        gapMeV: Number.isFinite(gd.gapMeV) ? gd.gapMeV : null,
+      }
+    : null;
+}
 
 interface CrystalFieldInput {
   base?: string;
@@ -154,7 +174,6 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
       re: Array.from({ length: n }, (_, i) => solution.eigenvectors.re[i * n + k]!),
       im: Array.from({ length: n }, (_, i) => solution.eigenvectors.im[i * n + k]!),
     }));
-    const gd = solution.groundDoublet;
     return {
       ion: ion.name,
       J: ion.J,
@@ -168,18 +187,7 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
         states: level.states.map((s) => ({ index: s.index, ket: s.ket, expectationJ: [...s.expectationJ], momentMuB: [...s.momentMuB] })),
       })),
       eigenvectors,
-      groundDoublet: gd
-        ? {
-            gParallel: gd.gParallel,
-            gPerpendicular: gd.gPerpendicular,
-            gTensor: gd.gTensor,
-            gPrincipalValues: gd.gPrincipalValues,
-            gPrincipalAxes: gd.gPrincipalAxes,
-            momentParallelMuB: gd.momentParallelMuB,
-            kramers: gd.kramers,
-            gapMeV: Number.isFinite(gd.gapMeV) ? gd.gapMeV : null,
-          }
-        : null,
+      groundDoublet: groundDoubletJson(solution.groundDoublet),
       classification: solution.classification,
       summary: solution.summary,
       warnings: solution.warnings,

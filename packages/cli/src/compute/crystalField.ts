@@ -13,6 +13,7 @@
 import { InputError } from '@multiplet/physics/errors';
 import { solveCef, describeLevels } from '@multiplet/physics/cef';
 import type { ComputeKind } from './index';
+import { groundDoubletJson } from '@multiplet/cells/kinds/crystalField';
 import { checkFields, optionalNumber, readCefInput } from './inputs';
 
 const FIELDS = ['ion', 'B', 'unit', 'symmetry', 'degeneracyToleranceMeV', 'isolationWarningMeV', 'weightThreshold'];
@@ -29,7 +30,6 @@ export const crystalField: ComputeKind = {
       isolationWarningMeV: optionalNumber(input, 'isolationWarningMeV'),
     });
     const described = describeLevels(solution, weightThreshold);
-    const gd = solution.groundDoublet;
     return {
       ion: ion.name,
       J: ion.J,
@@ -47,16 +47,7 @@ export const crystalField: ComputeKind = {
           momentMuB: s.momentMuB,
         })),
       })),
-      groundDoublet: gd && {
-        gParallel: gd.gParallel,
-        gPerpendicular: gd.gPerpendicular,
-        gTensor: gd.gTensor,
-        gPrincipalValues: gd.gPrincipalValues,
-        gPrincipalAxes: gd.gPrincipalAxes,
-        momentParallelMuB: gd.momentParallelMuB,
-        kramers: gd.kramers,
-        gapMeV: Number.isFinite(gd.gapMeV) ? gd.gapMeV : null,
-      },
+      groundDoublet: groundDoubletJson(solution.groundDoublet),
       classification: solution.classification,
       summary: solution.summary,
       warnings: solution.warnings,
