@@ -7,7 +7,7 @@
 import type { CompletenessReply, CompletionReply, InspectionReply } from './protocol';
 import { CELL_KINDS, getKind, kindNames } from './kinds';
 import { COMMON_FIELDS } from './session/typed';
-import { describeField, fieldUnit, type FieldSpec, type Schema } from './schema';
+import { describeField, fieldUnit, specAt, type FieldSpec, type Schema } from './schema';
 import { unitSuggestions } from './syntax/quantity';
 import { PHYSICS_SCOPE } from './script/scope';
 import type { SampleState } from './state';
@@ -65,21 +65,6 @@ function fieldsAt(schema: Schema, path: string[]): { fields?: Schema; keys?: rea
   return { fields };
 }
 
-function specAtPath(schema: Schema, path: string[]): FieldSpec | undefined {
-  let fields: Schema | undefined = schema;
-  let spec: FieldSpec | undefined;
-  for (const part of path) {
-    if (spec?.type === 'map') {
-      spec = spec.of;
-      fields = spec.type === 'record' ? spec.fields : undefined;
-      continue;
-    }
-    spec = fields?.[part];
-    if (!spec) return undefined;
-    fields = spec.type === 'record' ? spec.fields : undefined;
-  }
-  return spec;
-}
 
 function valueSuggestions(spec: FieldSpec, valueText: string, state: SampleState): { matches: string[]; start: number } {
   if (spec.type === 'choice') return { matches: [...spec.values], start: 0 };
@@ -125,7 +110,7 @@ export function complete(code: string, cursorPos: number, state: SampleState): C
     const valueMatch = /^(\s*)([\w-]+):\s*(.*)$/.exec(before);
     if (valueMatch) {
       const path = [...parentPath(lines, lineIndex, valueMatch[1]!.length, typed.headerLine), valueMatch[2]!];
-      const spec = specAtPath(schema, path);
+      const spec = specAt(schema, path);
       if (!spec) return reply([], cursor, '');
       const valueText = valueMatch[3]!;
       const { matches, start } = valueSuggestions(spec, valueText, state);
@@ -186,7 +171,7 @@ export function inspect(code: string, cursorPos: number, _detailLevel: number, s
       const indent = lineText.length - lineText.trimStart().length;
       const path = [...parentPath(lines, lineIndex, indent, typed.headerLine), word];
       const schema = { ...kind.fields, ...COMMON_FIELDS };
-      const spec = specAtPath(schema, path) ?? (schema[word] as FieldSpec | undefined);
+      const spec = specAt(schema, path) ?? (schema[word] as FieldSpec | undefined);
       if (spec) return text(fieldDoc(path.join('.'), spec));
     }
   }
