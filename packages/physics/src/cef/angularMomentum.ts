@@ -20,11 +20,6 @@ export function checkJ(J: number, field = 'J'): number {
   return Math.round(2 * J) + 1;
 }
 
-/** The m value of basis index k: m = J − k. */
-export function mOfIndex(J: number, k: number): number {
-  return J - k;
-}
-
 /** The five angular-momentum operators of one J multiplet. */
 export interface AngularMomentumMatrices {
   Jx: ComplexMatrix;
