@@ -15,7 +15,7 @@ import { spinIceRunData, type SpinIceRunData } from './spinIceRunData';
 import type { SpinIceRunOptions } from './spinIceSimulation';
 import { multiHistogramReweighting } from './multiHistogramReweighting';
 import { BOHR_MAGNETON_K_PER_T, type SpinIceModel } from './spinIceCouplings';
-import type { ShellName } from '../lattice/neighbourShells';
+import { SHELL_NAMES, type ShellName } from '../lattice/neighbourShells';
 import { levenbergMarquardt } from '../fit/levenbergMarquardt';
 import { GAS_CONSTANT_J_PER_MOL_K } from '../units';
 import { InputError } from '../errors';
@@ -56,8 +56,6 @@ export interface HeatCapacityFitResult {
   /** The final model (exchangeK and moment updated). */
   model: SpinIceModel;
 }
-
-const SHELLS: ShellName[] = ['J1', 'J2', 'J3a', 'J3b'];
 
 /**
  * Fit the chosen parameters to C(T) data (K, J/(mol K) per mole of spins, errors > 0).
@@ -136,7 +134,7 @@ function planFit(options: HeatCapacityFitOptions) {
   });
   const params = options.parameters;
   if (params.length === 0) throw new InputError('parameters', params, 'at least one of J1, J2, J3a, J3b, D');
-  for (const p of params) if (p !== 'D' && !SHELLS.includes(p as ShellName)) throw new InputError('parameters', p, 'J1, J2, J3a, J3b or D');
+  for (const p of params) if (p !== 'D' && !SHELL_NAMES.includes(p as ShellName)) throw new InputError('parameters', p, 'J1, J2, J3a, J3b or D');
   if (params.includes('D') && !options.model.dipolar) throw new InputError('parameters', 'D', 'a model with the dipolar interaction on');
   if (nd <= params.length) throw new InputError('data.temperaturesK', nd, `more data points than parameters (${params.length})`);
   const tMin = Math.min(...data.temperaturesK), tMax = Math.max(...data.temperaturesK);
@@ -158,7 +156,7 @@ function fitStep(run: SpinIceRunData, model: SpinIceModel, options: HeatCapacity
   const N = run.numberOfSites;
   const mh = multiHistogramReweighting(run.series.energyK, run.temperaturesK);
   const E = mh.energiesK;
-  const e = Object.fromEntries(SHELLS.map((s) => [s, mh.pool(run.series.shellSums[s])])) as Record<ShellName, Float64Array>;
+  const e = Object.fromEntries(SHELL_NAMES.map((s) => [s, mh.pool(run.series.shellSums[s])])) as Record<ShellName, Float64Array>;
   const proj = mh.pool(run.series.projection);
   const B = model.fieldTesla ?? [0, 0, 0];
   const zeemanScale = -model.momentMuB * BOHR_MAGNETON_K_PER_T * Math.hypot(B[0], B[1], B[2]);
@@ -169,7 +167,7 @@ function fitStep(run: SpinIceRunData, model: SpinIceModel, options: HeatCapacity
   for (let n = 0; n < E.length; n++) {
     eZ[n] = zeemanScale * proj[n];
     let ex = 0;
-    for (const s of SHELLS) ex += (ex0[s] ?? 0) * e[s][n];
+    for (const s of SHELL_NAMES) ex += (ex0[s] ?? 0) * e[s][n];
     eDip[n] = E[n] - run.constantK - ex - eZ[n];
   }
   const start = Float64Array.from(params.map((p) => (p === 'D' ? D0 : ex0[p] ?? 0)));
@@ -188,7 +186,7 @@ function fitStep(run: SpinIceRunData, model: SpinIceModel, options: HeatCapacity
     let mean = 0;
     for (let n = 0; n < E.length; n++) {
       let v = Dr * eDip[n] + zr * eZ[n];
-      for (const s of SHELLS) v += (J[s] ?? 0) * e[s][n];
+      for (const s of SHELL_NAMES) v += (J[s] ?? 0) * e[s][n];
       Ep[n] = v;
       mean += v / E.length;
     }
