@@ -27,15 +27,9 @@ import { energyToMeV, parseEnergyUnit, ACCEPTED_ENERGY_UNITS } from '@multiplet/
 import { fitCef, type CefFitSolution, type CefFitSpec } from '@multiplet/physics/fit/fitCef';
 import { sampleCefPosterior } from '@multiplet/physics/fit/sampleCefPosterior';
 import type { ComputeKind } from './index';
+import { checkFields, optionalInteger } from './inputs';
 
 const FIELDS = ['ion', 'symmetry', 'start', 'unit', 'free', 'bounds', 'peaks', 'spectra', 'susceptibility', 'magnetization', 'fitIntrinsicWidth', 'intrinsicWidthStartMeV', 'seed', 'starts', 'chi2Margin', 'errorScaling', 'mcmc'];
-
-function optionalInteger(input: Record<string, unknown>, key: string, min: number): number | undefined {
-  const v = input[key];
-  if (v === undefined) return undefined;
-  if (typeof v !== 'number' || !Number.isInteger(v) || v < min) throw new InputError(key, v, `an integer ≥ ${min}`);
-  return v;
-}
 
 function solutionJson(s: CefFitSolution) {
   return {
@@ -52,7 +46,7 @@ function solutionJson(s: CefFitSolution) {
 export const cefFit: ComputeKind = {
   summary: 'Fit B_n^m to neutron peaks/spectra: LM + multi-start minima, errors, correlations, optional ensemble MCMC',
   run(input) {
-    for (const key of Object.keys(input)) if (!FIELDS.includes(key)) throw new InputError(key, input[key], `no such field; fields are ${FIELDS.join(', ')}`);
+    checkFields(input, FIELDS);
     if (typeof input.symmetry !== 'string') throw new InputError('symmetry', input.symmetry, 'a site symmetry such as "D3d"');
     const unitName = input.unit === undefined ? 'meV' : input.unit;
     const unit = typeof unitName === 'string' ? parseEnergyUnit(unitName) : undefined;
@@ -105,12 +99,7 @@ export const cefFit: ComputeKind = {
       if (m === null || typeof m !== 'object' || Array.isArray(m)) throw new InputError('mcmc', m, 'an object {steps, walkers?, burnIn?, thin?, seed?}');
       const mc = m as Record<string, unknown>;
       for (const key of Object.keys(mc)) if (!['steps', 'walkers', 'burnIn', 'thin', 'seed'].includes(key)) throw new InputError(`mcmc.${key}`, mc[key], 'one of steps, walkers, burnIn, thin, seed');
-      const int = (key: string, min: number) => {
-        const v = mc[key];
-        if (v === undefined) return undefined;
-        if (typeof v !== 'number' || !Number.isInteger(v) || v < min) throw new InputError(`mcmc.${key}`, v, `an integer ≥ ${min}`);
-        return v;
-      };
+      const int = (key: string, min: number) => optionalInteger(mc, key, min, `mcmc.${key}`);
       const result = sampleCefPosterior(spec, report.best, {
         steps: int('steps', 1),
         walkers: int('walkers', 2),
