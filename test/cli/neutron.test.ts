@@ -59,6 +59,18 @@ describe('multiplet compute neutron-spectrum and cef-fit (built CLI)', () => {
     expect(out.startsRun).toBe(3);
   });
 
+  it('cef-fit: three energy-only peaks and six free parameters (ν < 0) give the best point, null errors and a warning, exit 0', () => {
+    const start = { B20: -0.03, B40: 1e-3, B43: -0.009, B60: 1e-5, B63: -5e-5, B66: 1e-4 };
+    const peaks = [3.68, 12.84, 25.69].map((energyMeV) => ({ energyMeV, errorMeV: 0.1, temperatureK: 5 }));
+    const r = compute('cef-fit', { ion: 'Er3+', symmetry: 'D3d', start, peaks, starts: 0 });
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    expect(r.json.best.degreesOfFreedom).toBe(-3);
+    expect(Object.values(r.json.best.errors)).toEqual([null, null, null, null, null, null]);
+    for (const v of Object.values(r.json.best.B)) expect(Number.isFinite(v)).toBe(true);
+    expect(r.json.warnings.join('\n')).toMatch(/under-determined: 3 data for 6 free parameters/);
+  });
+
   const bad: [string, unknown, RegExp][] = [
     ['zero peak error', { ion: 'Er3+', symmetry: 'D3d', start: { B20: -0.04 }, peaks: [{ energyMeV: 5, errorMeV: 0, temperatureK: 5 }] }, /peaks\[0\]\.errorMeV: got 0, expected a positive error/],
     ['forbidden parameter', { ion: 'Er3+', symmetry: 'D3d', start: { B22: 0.01 }, peaks: [{ energyMeV: 5, errorMeV: 0.1, temperatureK: 5 }] }, /start\.B22/],

@@ -71,6 +71,20 @@ describe('[cef-fit] cell', () => {
     expect(result.best.B.B43).toBeCloseTo(TRUTH.B43, 8);
   });
 
+  it('under-determined (Dy3+ D3d, three energy-only peaks, six free parameters, starts 0): best B, null errors, warning', async () => {
+    const session = createCellSession({ notebookDir: '.' });
+    await runOk(session, SAMPLE_CELL);
+    await runOk(session, `[crystal-field] cefDy\nB:\n  B20: -0.25 meV\n  B40: -3e-3 meV\n  B43: 2e-2 meV\n  B60: -1e-5 meV\n  B63: -1e-4 meV\n  B66: -1e-4 meV\n`);
+    const peaks = [20, 30, 40].map((e) => `  - { energy: ${e} meV, error: 0.2 meV, temperature: 5 K }`).join('\n');
+    const r = await runOk(session, `[cef-fit] fitU\nstart: cefDy\nstarts: 0\npeaks:\n${peaks}\n`);
+    const result = (r.data[MULTIPLET_MIME] as { result: { best: { B: Record<string, number>; errors: Record<string, number | null>; degreesOfFreedom: number }; warnings: string[] } }).result;
+    expect(result.best.degreesOfFreedom).toBe(-3);
+    expect(Object.values(result.best.errors)).toEqual([null, null, null, null, null, null]);
+    for (const v of Object.values(result.best.B)) expect(Number.isFinite(v)).toBe(true);
+    expect(result.warnings.join('\n')).toMatch(/under-determined: 3 data for 6 free parameters/);
+    expect(r.data['text/plain']).toMatch(/∞ \(undetermined\)/);
+  });
+
   it('positioned errors: zero peak error, forbidden free parameter, bounds excluding the start, no data', async () => {
     const session = createCellSession({ notebookDir: '.' });
     await runOk(session, ER_SAMPLE);

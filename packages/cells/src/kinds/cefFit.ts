@@ -86,7 +86,7 @@ export interface CefFitCellResult {
     bulkScales: { susceptibility: number[]; magnetization: number[] };
     peaks: { fromLevel: number; toLevel: number; computedMeV: number; computedIntensity: number | null; unassigned: boolean; energyResidual: number }[];
     spectrumScales: number[][];
-    intrinsicWidth: { valueMeV: number; errorMeV: number } | null;
+    intrinsicWidth: { valueMeV: number; errorMeV: number | null } | null;
   };
   minima: SolutionJson[];
   startsRun: number;
@@ -362,7 +362,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
           energyResidual: best.peakEnergyResiduals[i]!,
         })),
         spectrumScales: best.spectrumScales.map((s) => [...s]),
-        intrinsicWidth: best.intrinsicWidth ? { ...best.intrinsicWidth } : null,
+        intrinsicWidth: best.intrinsicWidth ? { valueMeV: best.intrinsicWidth.valueMeV, errorMeV: finiteOrNull(best.intrinsicWidth.errorMeV) } : null,
       },
       minima: report.minima.map(solutionJson),
       startsRun: report.startsRun,
@@ -399,7 +399,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
       ...datasetEntries,
       ['H_CEF evaluations', String(r.hamiltonianEvaluations)],
     ];
-    if (b.intrinsicWidth) entries.push(['intrinsic FWHM', `${formatNumber(b.intrinsicWidth.valueMeV, 4)} ± ${formatNumber(b.intrinsicWidth.errorMeV, 2)} meV`]);
+    if (b.intrinsicWidth) entries.push(['intrinsic FWHM', `${formatNumber(b.intrinsicWidth.valueMeV, 4)} ± ${b.intrinsicWidth.errorMeV === null ? '∞ (undetermined)' : formatNumber(b.intrinsicWidth.errorMeV, 2)} meV`]);
     if (r.posterior)
       for (const [k, v] of Object.entries(r.posterior.derived)) entries.push([`posterior ${k}`, `${formatNumber(v.mean, 5)} ± ${formatNumber(v.standardDeviation, 2)}`]);
     const html = [

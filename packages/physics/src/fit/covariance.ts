@@ -82,3 +82,14 @@ export function covarianceFromJacobian(
   undetermined.sort((x, y) => x - y);
   return { covariance, standardErrors, correlation, undetermined };
 }
+
+/** The summary of p parameters none of which the data determine: Infinity variances, identity correlation. */
+export function undeterminedCovariance(p: number): CovarianceSummary {
+  const covariance = new Float64Array(p * p);
+  const correlation = new Float64Array(p * p);
+  for (let j = 0; j < p; j++) {
+    covariance[j * p + j] = Infinity;
+    correlation[j * p + j] = 1;
+  }
+  return { covariance, standardErrors: new Float64Array(p).fill(Infinity), correlation, undetermined: Array.from({ length: p }, (_, j) => j) };
+}

@@ -52,13 +52,15 @@ export interface FitCefOptions {
 export interface CefFitSolution {
   /** All parameters (fixed and fitted), meV. */
   readonly parametersMeV: Record<string, number>;
-  /** 1σ errors of the free parameters, meV (Infinity: not determined by the data). */
+  /** 1σ errors of the free parameters, meV (Infinity: not determined by the data; all of them when ν < 0). */
   readonly errorsMeV: Record<string, number>;
   readonly freeKeys: readonly string[];
   /** Correlation matrix of the free parameters, rows/columns in `freeKeys` order. */
   readonly correlation: number[][];
   readonly chi2: number;
+  /** χ²/ν; χ² itself when ν ≤ 0 (stated in the report's warnings). */
   readonly chi2Reduced: number;
+  /** ν = data − free parameters − profiled scales and backgrounds; negative when under-determined. */
   readonly degreesOfFreedom: number;
   /** χ² split by dataset: the peak list, one entry per spectrum, per χ(T) and per M(B) dataset. */
   readonly chi2ByDataset: {
@@ -130,15 +132,27 @@ export function cefLeastSquaresProblem(model: CefFitModel): LeastSquaresProblem 
 }
 
 /** Describe one LM result as a CefFitSolution. */
-export function describeCefSolution(model: CefFitModel, fit: LevenbergMarquardtResult, hits: number): CefFitSolution {
+export function describeCefSolution(
+  model: CefFitModel,
+  fit: LevenbergMarquardtResult,
+  hits: number,
+  errorScaling: 'data' | 'residual' = 'data',
+): CefFitSolution {
   const evaluation = model.evaluate(fit.parameters);
   const p = model.freeKeys.length;
   const all = model.parameterCount;
-  const errorsMeV: Record<string, number> = {};
-  model.freeKeys.forEach((key, k) => (errorsMeV[key] = fit.standardErrors[k] / model.norms[k]));
-  const correlation = Array.from({ length: p }, (_, a) => Array.from({ length: p }, (_, b) => fit.correlation[a * all + b]));
-  const width = model.widthIndex >= 0 ? { valueMeV: fit.parameters[model.widthIndex], errorMeV: fit.standardErrors[model.widthIndex] } : undefined;
   const dof = model.degreesOfFreedom;
+  // ν < 0 (fewer data than free parameters and profiled scales): the data fix at most a combination of the
+  // parameters, so no parameter has an error. ν = 0: s² = χ²/ν is undefined, so 'residual' errors do not exist.
+  // The least-squares side cannot see this when the profiled scales are what tips the count.
+  const undetermined = dof < 0 || (dof === 0 && errorScaling === 'residual');
+  const standardError = (k: number) => (undetermined ? Infinity : fit.standardErrors[k]);
+  const errorsMeV: Record<string, number> = {};
+  model.freeKeys.forEach((key, k) => (errorsMeV[key] = standardError(k) / model.norms[k]));
+  const correlation = Array.from({ length: p }, (_, a) =>
+    Array.from({ length: p }, (_, b) => (a === b ? 1 : undetermined ? 0 : fit.correlation[a * all + b])),
+  );
+  const width = model.widthIndex >= 0 ? { valueMeV: fit.parameters[model.widthIndex], errorMeV: standardError(model.widthIndex) } : undefined;
   // Split the residual vector in the order the model writes it: peaks (energy, then intensity), spectra, χ(T), M(B).
   const r = evaluation.residuals;
   let offset = 0;
@@ -241,10 +255,14 @@ export function fitCef(spec: CefFitSpec, options: FitCefOptions = {}): CefFitRep
     chi2Margin: options.chi2Margin,
     canonicalize: (fit) => twins.canonicalFit(fit),
   });
-  const minima = search.minima.map((m) => describeCefSolution(model, m.fit, m.hits));
+  const minima = search.minima.map((m) => describeCefSolution(model, m.fit, m.hits, local.errorScaling));
   const warnings: string[] = [];
-  if (model.degreesOfFreedom <= 0)
-    warnings.push(`more free parameters (${model.parameterCount} + ${model.profiledCount} scales) than data (${model.residualCount}): χ²_red is χ²`);
+  const dof = model.degreesOfFreedom;
+  const counted = `${model.residualCount} data for ${model.parameterCount} free parameters` + (model.profiledCount ? ` and ${model.profiledCount} profiled scales/backgrounds` : '');
+  if (dof < 0)
+    warnings.push(`under-determined: ${counted} (ν = ${dof}); the best parameters are one point of a family that fits equally well, their errors are undetermined (null) and χ²_red is χ². Add data (peaks with intensities, more temperatures, bulk data) or fix parameters`);
+  else if (dof === 0)
+    warnings.push(`no degrees of freedom: ${counted} (ν = 0); χ²_red is χ²` + (local.errorScaling === 'residual' ? ", and errors scaled by the residuals are undetermined (null)" : ''));
   if (minima[0].peakAssignments.some((a) => a.unassigned)) warnings.push('some peaks have no visible computed transition left to match');
   if (!minima[0].converged) warnings.push('the best local fit stopped before its convergence criteria were met');
   return {

@@ -17,7 +17,7 @@
  * See also: covarianceFromJacobian, multiStartSearch, ensembleSampler.
  */
 import { InputError } from '../errors';
-import { covarianceFromJacobian } from './covariance';
+import { covarianceFromJacobian, undeterminedCovariance } from './covariance';
 import { finiteDifferenceJacobian } from './finiteDifferenceJacobian';
 import { applyQTranspose, householderQr, solveDampedTriangular } from './numerics/denseLinearAlgebra';
 import type { CovarianceSummary, LeastSquaresProblem } from './types';
@@ -50,7 +50,10 @@ export interface LevenbergMarquardtResult extends CovarianceSummary {
   readonly parameters: Float64Array;
   readonly residuals: Float64Array;
   readonly chi2: number;
-  /** χ² / (n − p); equal to χ² when n ≤ p. */
+  /**
+   * χ² / (n − p); equal to χ² when n ≤ p (no degrees of freedom). Then every standard error is Infinity (undetermined)
+   * when n < p, and also when n = p with errorScaling 'residual'.
+   */
   readonly chi2Reduced: number;
   readonly degreesOfFreedom: number;
   readonly iterations: number;
@@ -125,9 +128,15 @@ export function levenbergMarquardt(
   let iterations = 0;
   let stop: LevenbergMarquardtStop = 'max-iterations';
 
-  // QR of the current Jacobian; recomputed only after an accepted step.
+  // QR of the current Jacobian and the first p components of Qᵀr (zero-padded when m < p: the problem with p − m zero
+  // rows appended has the same solutions); recomputed only after an accepted step.
+  const topOfQtr = (q: ReturnType<typeof householderQr>, v: Float64Array): Float64Array => {
+    const out = new Float64Array(p);
+    out.set(applyQTranspose(q, v).subarray(0, Math.min(m, p)));
+    return out;
+  };
   let qr = householderQr(jac, m, p);
-  let qtr = applyQTranspose(qr, r);
+  let qtr = topOfQtr(qr, r);
 
   while (iterations < maxIterations) {
     iterations++;
@@ -143,7 +152,7 @@ export function levenbergMarquardt(
       stop = 'gradient';
       break;
     }
-    const delta = solveDampedTriangular(qr.r, qtr.subarray(0, p), diag, lambda, p);
+    const delta = solveDampedTriangular(qr.r, qtr, diag, lambda, p);
     const trial = new Float64Array(p);
     for (let j = 0; j < p; j++) trial[j] = Math.min(upper[j], Math.max(lower[j], x[j] + delta[j]));
     const step = new Float64Array(p);
@@ -178,7 +187,7 @@ export function levenbergMarquardt(
       jac = jacobianAt(x, r);
       updateScaling();
       qr = householderQr(jac, m, p);
-      qtr = applyQTranspose(qr, r);
+      qtr = topOfQtr(qr, r);
       lambda *= Math.max(1 / 3, 1 - (2 * rho - 1) ** 3);
       nu = 2;
       task?.report(iterations, maxIterations, 'least squares');
@@ -198,8 +207,13 @@ export function levenbergMarquardt(
 
   const degreesOfFreedom = Math.max(0, m - p);
   const chi2Reduced = degreesOfFreedom > 0 ? cost / degreesOfFreedom : cost;
-  const residualVariance = (options.errorScaling ?? 'residual') === 'residual' ? chi2Reduced : 1;
-  const summary = covarianceFromJacobian(jac, m, p, { residualVariance });
+  const residualScaling = (options.errorScaling ?? 'residual') === 'residual';
+  // Fewer residuals than parameters: JᵀJ is singular and no parameter error exists. With n = p, s² = χ²/(n − p) is
+  // undefined, so 'residual' errors do not exist either; 'data' errors (σ trusted) still do.
+  const summary =
+    m < p || (residualScaling && degreesOfFreedom === 0)
+      ? undeterminedCovariance(p)
+      : covarianceFromJacobian(jac, m, p, { residualVariance: residualScaling ? chi2Reduced : 1 });
   return {
     ...summary,
     parameters: x,

@@ -5,7 +5,11 @@
  * (Golub & Van Loan, Matrix Computations, 4th ed., §5.2 and §5.3).
  */
 
-/** Householder QR of an m×p matrix (m ≥ p), in place. Returns R (p×p, upper) and the reflectors to apply Qᵀ. */
+/**
+ * Householder QR of an m×p matrix. Returns R (p×p, upper) and the reflectors to apply Qᵀ. With m < p (fewer rows than
+ * columns, an under-determined least-squares problem) R is the m×p upper-trapezoidal factor padded with zero rows,
+ * i.e. the R of the matrix with p − m zero rows appended, which has the same least-squares solutions.
+ */
 export interface QrFactorization {
   readonly m: number;
   readonly p: number;
@@ -46,7 +50,8 @@ export function householderQr(a: Float64Array, m: number, p: number): QrFactoriz
     }
   }
   const r = new Float64Array(p * p);
-  for (let i = 0; i < p; i++) for (let j = i; j < p; j++) r[i * p + j] = w[i * p + j];
+  const rows = Math.min(m, p);
+  for (let i = 0; i < rows; i++) for (let j = i; j < p; j++) r[i * p + j] = w[i * p + j];
   return { m, p, r, reflectors, betas };
 }
 
