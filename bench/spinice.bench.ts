@@ -1,5 +1,5 @@
 // Spin-flip attempts per second of the spin-ice Metropolis sweep for L = 4 (1024 spins) with the full Ewald
-// dipolar pair matrix (Dy2Ti2O7-like: J1 = 3.72 K, μ = 10 μB, a = 10.124 Å), beside a plain C reference of the
+// dipolar pair matrix (a dysprosium pyrochlore: J1 = 3.72 K, μ = 10 μB, a = 10.124 Å), beside a plain C reference of the
 // same loop (bench/c/spinice_metropolis.c, gcc -O2, compiled here into bench/build/), started from the same
 // spins, fields and generator state so that both make the same moves. Target: JS within 2× of C. The simulation
 // path uses the WebAssembly SIMD row update (montecarlo/rowUpdateKernel.ts); the plain JavaScript loop (used where

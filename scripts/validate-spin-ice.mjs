@@ -3,9 +3,9 @@
 //  1. nearest-neighbour spin ice (L = 5): residual entropy by thermodynamic integration vs Nagle's 0.2050 R (Nagle,
 //     J. Math. Phys. 7, 1484 (1966)); Pauling (R/2) ln(3/2) = 0.2027 R;
 //  2. [111] field at T ≪ J_eff: kagome-ice plateau M = μ/3 per spin, saturation μ/2 (geometry of 3-in-1-out);
-//  3. dipolar spin ice with J_nn = −1.24 K, D_nn = 2.35 K (den Hertog & Gingras, PRL 84, 3430 (2000), Dy2Ti2O7):
-//     with loop moves the first-order transition to the q = (001) state, T_c ≈ 0.18 K (Melko, den Hertog &
-//     Gingras, PRL 87, 067203 (2001); from memory). Prints T_c from the reweighted C(T) peak and ψ on both sides.
+//  3. dipolar spin ice with J_nn = −1.24 K, D_nn = 2.35 K (PRL 84, 3430 (2000)):
+//     with loop moves the first-order transition to the q = (001) state, T_c ≈ 0.18 K (Melko et al.,
+//     PRL 87, 067203 (2001); from memory). Prints T_c from the reweighted C(T) peak and ψ on both sides.
 import * as esbuild from 'esbuild';
 import { join } from 'node:path';
 import { mkdirSync } from 'node:fs';

@@ -1,7 +1,7 @@
 import { createCellSession, type MultipletSession, type CellOutput, type ExecuteOutcome } from '@multiplet/cells';
 
 export const SAMPLE_CELL = `[sample] host
-compound: Dy2Ti2O7
+compound: DyQ-1
 ion: Dy3+
 siteSymmetry: D3d
 latticeConstant: 10.12 angstrom

@@ -10,7 +10,7 @@ describe('sample and data cells', () => {
   it('stores the sample with normalized units and renders text, html and the result JSON', async () => {
     const s = createCellSession();
     const { data, outcome } = await runOk(s, SAMPLE_CELL);
-    expect(data['text/plain']).toContain('Dy2Ti2O7');
+    expect(data['text/plain']).toContain('DyQ-1');
     expect(data['text/html']).toContain('<table');
     const payload = data[RESULT_MIME_TYPE] as ResultPayload;
     expect(payload).toMatchObject({ version: 1, kind: 'sample', name: 'host' });

@@ -7,7 +7,7 @@ import { runCommand } from '@multiplet/cli/run/command';
 import { OutputCollector, type Notebook } from '@multiplet/cli/run/notebook';
 import { compareText, compareOutputs } from '@multiplet/cli/run/compare';
 
-const SAMPLE = '[sample] host\ncompound: Dy2Ti2O7\nion: Dy3+\nsiteSymmetry: D3d\nmolarMass: 532.8 g/mol\n';
+const SAMPLE = '[sample] host\ncompound: DyQ-1\nion: Dy3+\nsiteSymmetry: D3d\nmolarMass: 532.8 g/mol\n';
 const CEF = '[crystal-field] cefA\nB:\n  B20: -0.35 meV\n  B40: 1.2e-3 meV\n  B43: 0.01 meV\n';
 
 function notebook(sources: string[]): Notebook {

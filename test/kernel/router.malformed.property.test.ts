@@ -11,7 +11,7 @@ import { createHarness, TEST_KEY } from './routerHarness';
 const withTimeout = <T>(p: Promise<T>, ms: number) =>
   Promise.race([p, new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`router did not drain in ${ms} ms`)), ms))]);
 
-const SAMPLE = '[sample] host\ncompound: Dy2Ti2O7\nion: Dy3+\nsiteSymmetry: D3d';
+const SAMPLE = '[sample] host\ncompound: DyQ-1\nion: Dy3+\nsiteSymmetry: D3d';
 
 describe('router: malformed but correctly signed messages (fast-check)', () => {
   it('bad JSON or non-object frames are dropped with a logged reason; the state is byte-for-byte unchanged', async () => {

@@ -18,7 +18,7 @@ class CommTests(KernelPerClass, unittest.TestCase):
         return shell_reply(self.kc, msg_id)["content"]
 
     def test_state_comm_round_trip(self):
-        msg_id = self.kc.execute("[sample] host\ncompound: Yb2Ti2O7\nion: Yb3+")
+        msg_id = self.kc.execute("[sample] host\ncompound: YbQ-2\nion: Yb3+")
         self.assertEqual(shell_reply(self.kc, msg_id)["content"]["status"], "ok")
         iopub_until_idle(self.kc, msg_id)
 
@@ -37,7 +37,7 @@ class CommTests(KernelPerClass, unittest.TestCase):
         self.assertEqual(data["sample"]["name"], "host")
 
         # An execute pushes a fresh snapshot to the open state comm, parented to that execute.
-        run = self.kc.execute("[sample] second\ncompound: Dy2Ti2O7\nion: Dy3+")
+        run = self.kc.execute("[sample] second\ncompound: DyQ-1\nion: Dy3+")
         pushed = [m for m in iopub_until_idle(self.kc, run) if m["msg_type"] == "comm_msg"]
         self.assertTrue(pushed)
         self.assertEqual(pushed[-1]["content"]["data"]["sample"]["name"], "second")

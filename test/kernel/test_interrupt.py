@@ -29,7 +29,7 @@ ASYNC_STARVING = {
 # Real long typed cells (each would run for minutes): a parallel-tempering Monte Carlo (worker thread, the cell
 # awaits it with ctx.yieldNow) and a multi-start CEF fit with MCMC (synchronous physics with task.checkpoint()).
 ER_CELLS = [
-    "[sample] host\ncompound: Er2Ti2O7\nion: Er3+\nsiteSymmetry: D3d\nlatticeConstant: 10.07 angstrom\nionsPerFormulaUnit: 2",
+    "[sample] host\ncompound: ErQ-3\nion: Er3+\nsiteSymmetry: D3d\nlatticeConstant: 10.07 angstrom\nionsPerFormulaUnit: 2",
     "[crystal-field] cefStart\nB:\n  B20: -0.03 meV\n  B40: 1e-3 meV\n  B43: -0.009 meV\n  B60: 1e-5 meV\n  B63: -5e-5 meV\n  B66: 1e-4 meV",
 ]
 # Peaks of the D3d field B20 -0.04, B40 1.2e-3, B43 -1.1e-2, B60 8e-6, B63 -7e-5, B66 9e-5 meV (as in the cells tests).
@@ -55,7 +55,7 @@ STATE_DUMP = "JSON.stringify({ sample: state.sample, names: state.names, results
 
 class InterruptTests(KernelPerClass, unittest.TestCase):
     def interrupt_endless_cell(self, interrupt, code=ENDLESS):
-        self.run_cell('[sample] before\ncompound: Yb2Ti2O7\nion: Yb3+')
+        self.run_cell('[sample] before\ncompound: YbQ-2\nion: Yb3+')
         msg_id = self.kc.execute(code)
         # Wait until the cell is running (its execute_input is out), then let it spin a little.
         while True:
@@ -81,7 +81,7 @@ class InterruptTests(KernelPerClass, unittest.TestCase):
         reply, outputs = self.run_cell('state.sample.compound + " " + state.names.join(",")')
         self.assertEqual(reply["content"]["status"], "ok")
         result = [m for m in outputs if m["msg_type"] == "execute_result"][0]
-        self.assertEqual(result["content"]["data"]["text/plain"], "Yb2Ti2O7 before")
+        self.assertEqual(result["content"]["data"]["text/plain"], "YbQ-2 before")
 
     def test_interrupt_request_stops_async_loops_that_never_checkpoint(self):
         for name, code in ASYNC_STARVING.items():
@@ -100,7 +100,7 @@ class InterruptTests(KernelPerClass, unittest.TestCase):
                 self.assertEqual(reply["content"]["status"], "ok", reply["content"])
             reply, outputs = run_cell(kc, STATE_DUMP)
             before = value(outputs)
-            self.assertIn("Er2Ti2O7", before)
+            self.assertIn("ErQ-3", before)
             self.assertIn("cefStart", before)
             for kind, code in LONG_TYPED.items():
                 with self.subTest(kind=kind):

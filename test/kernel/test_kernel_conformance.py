@@ -38,7 +38,7 @@ class MultipletKernelTests(jupyter_kernel_test.KernelTests):
         {"text": "physics.un", "matches": {"units"}},
     ]
 
-    complete_code_samples = ["console.log(1)", "[sample] s\ncompound: Yb2Ti2O7\nion: Yb3+"]
+    complete_code_samples = ["console.log(1)", "[sample] s\ncompound: YbQ-2\nion: Yb3+"]
     incomplete_code_samples = ["function f() {", "let x = (", "[sample] s\nion: \"Yb"]
     invalid_code_samples = ["let x = )", '"unterminated']
 

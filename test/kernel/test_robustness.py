@@ -8,7 +8,7 @@ from kernel_env import InstalledKernel, KernelPerClass, run_cell, start_kernel, 
 
 class RobustnessTests(KernelPerClass, unittest.TestCase):
     def test_unhandled_rejections_do_not_kill_the_kernel(self):
-        self.run_cell("[sample] kept\ncompound: Yb2Ti2O7\nion: Yb3+")
+        self.run_cell("[sample] kept\ncompound: YbQ-2\nion: Yb3+")
         for code in ['Promise.reject(new Error("nobody catches this")); 1', 'new Promise((_, reject) => reject(new Error("later")))']:
             with self.subTest(code=code):
                 self.run_cell(code)
@@ -38,7 +38,7 @@ class LifecycleTests(unittest.TestCase):
         return run_cell(self.kc, code)
 
     def test_restart_then_shutdown(self):
-        self.run_cell("[sample] before\ncompound: Yb2Ti2O7\nion: Yb3+")
+        self.run_cell("[sample] before\ncompound: YbQ-2\nion: Yb3+")
         first = self.km.provisioner.process
         self.km.restart_kernel()
         self.assertEqual(first.poll(), 0, "the old kernel process should have exited by itself, with status 0")

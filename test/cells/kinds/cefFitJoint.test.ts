@@ -8,7 +8,7 @@ import { vanVleckSusceptibility, magnetization } from '@multiplet/physics/thermo
 import { getIon } from '@multiplet/physics/ions';
 
 const MULTIPLET_MIME = 'application/vnd.multiplet.result+json';
-const ER_SAMPLE = SAMPLE_CELL.replace('Dy2Ti2O7', 'Er2Ti2O7').replace('Dy3+', 'Er3+'); // 2 ions per formula unit
+const ER_SAMPLE = SAMPLE_CELL.replace('DyQ-1', 'ErQ-3').replace('Dy3+', 'Er3+'); // 2 ions per formula unit
 const TRUTH = { B20: -0.04, B40: 1.2e-3, B43: -1.1e-2, B60: 8e-6, B63: -7e-5, B66: 9e-5 };
 const START_CEF = `[crystal-field] cefStart
 B:

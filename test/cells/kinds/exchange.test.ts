@@ -9,7 +9,7 @@ import { createCellSession, run, runOk, errorOf, SAMPLE_CELL } from '../helpers'
 const MULTIPLET_MIME = 'application/vnd.multiplet.result+json';
 const VEGA_MIME = 'application/vnd.vegalite.v5+json';
 
-// A |±15/2⟩ Dy3+ doublet (B20 < 0 only) on the Dy2Ti2O7 sample (a = 10.12 Å).
+// A |±15/2⟩ Dy3+ doublet (B20 < 0 only) on the DyQ-1 sample (a = 10.12 Å).
 const DY_CEF = `[crystal-field] cefIsing
 B:
   B20: -0.1 meV

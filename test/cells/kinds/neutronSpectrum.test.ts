@@ -6,7 +6,7 @@ import { getIon } from '@multiplet/physics/ions';
 import { MAGNETIC_PREFACTOR_MB } from '@multiplet/physics/units';
 
 const MULTIPLET_MIME = 'application/vnd.multiplet.result+json';
-const ER_SAMPLE = SAMPLE_CELL.replace('Dy2Ti2O7', 'Er2Ti2O7').replace('Dy3+', 'Er3+');
+const ER_SAMPLE = SAMPLE_CELL.replace('DyQ-1', 'ErQ-3').replace('Dy3+', 'Er3+');
 const ER_CEF = `[crystal-field] cefEr
 B:
   B20: -0.04 meV

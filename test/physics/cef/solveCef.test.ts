@@ -152,7 +152,7 @@ describe('solveCef: result shape, options and warnings', () => {
 
   it('classification thresholds', () => {
     expect(classifyDoublet(20, 0)).toBe('Ising');
-    expect(classifyDoublet(2.6, 6.8)).toBe('XY'); // Er2Ti2O7-like (g∥ ≈ 2.6, g⊥ ≈ 6.8; from memory)
+    expect(classifyDoublet(2.6, 6.8)).toBe('XY'); // Er-type doublet (g∥ ≈ 2.6, g⊥ ≈ 6.8; from memory)
     expect(classifyDoublet(10 / 7, 10 / 7)).toBe('Heisenberg');
     expect(classifyDoublet(3, 2)).toBe('intermediate');
     expect(classifyDoublet(0, 0)).toBe('nonmagnetic');

@@ -1,6 +1,6 @@
 /**
  * Bond phases of the anisotropic pyrochlore model and the two-site geometry.
- * Reference table: γ_ij of Ross, Savary, Gaulin & Balents, PRX 1, 021002 (2011) (from memory), ζ = −γ*.
+ * Reference table: γ_ij of Phys. Rev. X 1, 021002 (2011) (from memory), ζ = −γ*.
  */
 import { describe, it, expect } from 'vitest';
 import { bondPhases, pyrochloreBond, generalBond } from '@multiplet/physics/exchange';
@@ -9,7 +9,7 @@ import { InputError } from '@multiplet/physics/errors';
 const w: [number, number] = [-0.5, Math.sqrt(3) / 2];
 const w2: [number, number] = [-0.5, -Math.sqrt(3) / 2];
 const one: [number, number] = [1, 0];
-// from memory: Ross et al. 2011, γ_ij for sublattices 0..3 with the local frames of lattice/localFrames.ts
+// from memory: Phys. Rev. X 1, 021002 (2011), γ_ij for sublattices 0..3 with the local frames of lattice/localFrames.ts
 const GAMMA: Array<Array<[number, number] | null>> = [
   [null, one, w, w2],
   [one, null, w2, w],

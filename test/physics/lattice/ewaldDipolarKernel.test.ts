@@ -94,7 +94,7 @@ describe('ewaldDipolarKernel', () => {
     const N = cell.numberOfSites;
     for (let i = 0; i < N; i += 7) for (let j = 0; j < N; j += 5) expect(d.matrixK[i * N + j]).toBeCloseTo(d.matrixK[j * N + i], 10);
     expect(d.couplingDK).toBeCloseTo((DIPOLAR_K_A3_PER_MUB2 * 100) / ((10.124 * Math.SQRT2) / 4) ** 3, 12);
-    // Nearest neighbours 0 and 1: the bare pair term is (5/3) D (den Hertog & Gingras 2000); the Ewald value adds
+    // Nearest neighbours 0 and 1: the bare pair term is (5/3) D (PRL 84, 3430 (2000)); the Ewald value adds
     // the images, a small correction.
     expect(d.matrixK[1] / ((5 / 3) * d.couplingDK)).toBeGreaterThan(0.97);
     expect(d.matrixK[1] / ((5 / 3) * d.couplingDK)).toBeLessThan(1.03);

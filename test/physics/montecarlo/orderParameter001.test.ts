@@ -5,8 +5,8 @@ import { createRandom } from '@multiplet/physics/random';
 
 describe('orderParameter001', () => {
   it('is 1 in the exact ground state of dipolar spin ice on one cubic cell (enumeration of 2^16 states)', () => {
-    // Dipolar spin ice (Dy2Ti2O7-like: J_nn = −1.24 K, D_nn = 2.35 K; den Hertog & Gingras 2000) orders with
-    // q = (001) (Melko, den Hertog & Gingras 2001); that state fits in one cubic cell.
+    // Dipolar spin ice (a dysprosium pyrochlore: J_nn = −1.24 K, D_nn = 2.35 K; PRL 84, 3430 (2000)) orders with
+    // q = (001) (Melko et al. 2001); that state fits in one cubic cell.
     const c = spinIceCouplings({ L: 1, latticeConstantAngstrom: 10.124, momentMuB: 10, exchangeK: { J1: 3.72 }, dipolar: true });
     const J = c.dense!;
     const N = 16;

@@ -17,7 +17,7 @@ describe('runSpinIceMonteCarlo', () => {
   });
 
   it('nearest-neighbour spin ice: residual entropy within 1.5 % of Nagle 0.2050 R (Nagle, J. Math. Phys. 7, 1484 (1966))', () => {
-    // J_nn = −J1/3 = 1 K (den Hertog & Gingras 2000 convention). Pauling's estimate (R/2) ln(3/2) = 0.2027 R.
+    // J_nn = −J1/3 = 1 K (the usual dipolar spin-ice convention, PRL 84, 3430 (2000)). Pauling's estimate (R/2) ln(3/2) = 0.2027 R.
     // L = 4 (1024 spins): the ice-state entropy of small periodic cells lies above Nagle's value (measured: L = 3
     // about +2 %, L = 4 about +1 %, L = 5 about +0.5 %; seed-to-seed scatter ±0.4 %). This seed gives +0.35 %;
     // npm run validate:spin-ice repeats the check at L = 5.

@@ -4,7 +4,7 @@
  * (crystal-field takes its ion and symmetry; thermodynamics kinds its molar quantities).
  *
  *   [sample] host
- *   compound: Dy2Ti2O7
+ *   compound: DyQ-1
  *   ion: Dy3+
  *   siteSymmetry: D3d
  *   latticeConstant: 10.12 angstrom
@@ -30,7 +30,7 @@ export const sampleKind = defineKind<SampleInput, SampleResult>({
   kind: 'sample',
   summary: 'the compound: label, magnetic ion, site symmetry, lattice constant, ions per formula unit, molar mass',
   fields: {
-    compound: { type: 'string', required: true, maxLength: 200, doc: 'Compound label as you write it, e.g. Dy2Ti2O7.' },
+    compound: { type: 'string', required: true, maxLength: 200, doc: 'Compound label as you write it, e.g. DyQ-1.' },
     ion: {
       type: 'string',
       required: true,
@@ -46,7 +46,7 @@ export const sampleKind = defineKind<SampleInput, SampleResult>({
       doc: 'Point group of the magnetic site (Schoenflies symbol, e.g. D3d, Oh, D4h; "none" allows all 27 Stevens parameters). It decides which B parameters a crystal-field cell may use.',
     },
     latticeConstant: { type: 'quantity', unit: 'angstrom', min: 1e-3, doc: 'Cubic lattice constant a (or the a axis), e.g. 10.12 angstrom.' },
-    ionsPerFormulaUnit: { type: 'integer', min: 1, max: 1000, default: 1, doc: 'Magnetic ions per formula unit (2 for Dy2Ti2O7); molar quantities are per mole of formula units.' },
+    ionsPerFormulaUnit: { type: 'integer', min: 1, max: 1000, default: 1, doc: 'Magnetic ions per formula unit (2 for DyQ-1); molar quantities are per mole of formula units.' },
     molarMass: { type: 'quantity', unit: 'g/mol', min: 1e-3, doc: 'Molar mass of one formula unit, e.g. 532.8 g/mol (needed for per-gram conversions).' },
   },
   reads: [],

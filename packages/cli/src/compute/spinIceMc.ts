@@ -5,7 +5,7 @@
  *   L                       cubic cells per axis (N = 16 L³ spins; ≤ 6 with the dipolar sum)     required
  *   temperaturesK           [K, …], distinct, > 0                                              required
  *   J1K, J2K, J3aK, J3bK    exchange in K, H = Σ J S_i·S_j with unit Ising vectors (J > 0 antiferro;
- *                           den Hertog–Gingras J_nn = −J1/3); shells as in physics/lattice     default 0
+ *                           dipolar spin-ice J_nn = −J1/3); shells as in physics/lattice     default 0
  *   dipolar                 { momentMuB, latticeConstantAngstrom } for the Ewald dipolar sum, or false   default false
  *   momentMuB               Ising moment in μB when dipolar is false (Zeeman only)             default 10
  *   latticeConstantAngstrom cubic lattice constant when dipolar is false                       default 10.1

@@ -79,7 +79,7 @@ export interface SolveCefOptions {
  * Anisotropy classes from the ratio ρ = g∥/g⊥ of a doublet (our own thresholds, stated here once):
  * Ising ρ ≥ 2 (including g⊥ = 0), XY ρ ≤ 1/2, Heisenberg 0.8 ≤ ρ ≤ 1.25, otherwise intermediate; 'nonmagnetic' when
  * both g values vanish (below 1e-9).
- * With these, Dy2Ti2O7/Ho2Ti2O7-like doublets are Ising and Er2Ti2O7/Yb2Ti2O7-like (ρ ≈ 0.4) are XY.
+ * With these, nearly pure |±J⟩ Dy/Ho-type doublets are Ising, and Er/Yb-type doublets with ρ ≈ 0.4 are XY.
  */
 export function classifyDoublet(gParallel: number, gPerpendicular: number): 'Ising' | 'XY' | 'Heisenberg' | 'intermediate' | 'nonmagnetic' {
   if (Math.max(gParallel, gPerpendicular) < 1e-9) return 'nonmagnetic';

@@ -8,7 +8,7 @@
  * With these, J_±±(γ_ij S⁺_i S⁺_j + c.c.) = 2J_±±(S^n_i S^n_j − S^m_i S^m_j) (n̂ and m̂ = ẑ × n̂ in each frame) and
  * J_z± S^z_i(ζ_ij S⁺_j + c.c.) = 2J_z± S^z_i S^{ẑ_i⊥}_j: each phase is the azimuth of a bond-defined direction.
  * For the pyrochlore frames of `lattice/localFrames.ts` this reproduces the table γ = [[0,1,w,w²],[1,0,w²,w],
- * [w,w²,0,1],[w²,w,1,0]], w = e^{2πi/3}, ζ = −γ* (Ross, Savary, Gaulin & Balents, PRX 1, 021002 (2011); from
+ * [w,w²,0,1],[w²,w,1,0]], w = e^{2πi/3}, ζ = −γ* (Phys. Rev. X 1, 021002 (2011); from
  * memory; checked in test/physics/exchange/bondGeometry.test.ts). When ẑ_i ∥ ẑ_j (other lattices) n̂ = r̂ × ẑ_i is
  * used, and the bond vector r̂ projected on the plane of j replaces ẑ_i for ζ; if that also vanishes, x̂ is used.
  */

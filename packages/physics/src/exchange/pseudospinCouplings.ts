@@ -7,7 +7,7 @@
  *
  *   Σ_ab J_ab S_i^a S_j^b = J_zz S^z_i S^z_j − J_±(S⁺_i S⁻_j + S⁻_i S⁺_j) + J_±±(γ_ij S⁺_i S⁺_j + γ*_ij S⁻_i S⁻_j)
  *                         + J_z±[S^z_i(ζ_ij S⁺_j + ζ*_ij S⁻_j) + (ζ_ji S⁺_i + ζ*_ji S⁻_i) S^z_j]
- *   (the form of Ross, Savary, Gaulin & Balents, PRX 1, 021002 (2011), eq. 2; from memory).
+ *   (the form of Phys. Rev. X 1, 021002 (2011), eq. 2; from memory).
  * The four couplings are the orthogonal projection of J_ab onto the four basis matrices of this form (they are
  * mutually orthogonal); `residualMeV` is the Frobenius norm of what the form does not capture (zero for a bond
  * with the pyrochlore nearest-neighbour symmetry).
@@ -147,7 +147,7 @@ export function couplingRatios(c: { Jzz: number; Jpm: number; Jpmpm: number; Jzp
 /**
  * One sentence on what the ratios mean. Thresholds (our own, stated here): largest |ratio| < 0.01: Ising limit;
  * < 0.2: perturbative transverse terms (for J_zz > 0 a quantum spin ice regime, where the ring exchange
- * 12 J_±³/J_zz² sets the emergent-photon scale: Hermele, Fisher & Balents, PRB 69, 064404 (2004); from memory);
+ * 12 J_±³/J_zz² sets the emergent-photon scale: PRB 69, 064404 (2004); from memory);
  * otherwise sizeable transverse terms (not an Ising model).
  * @example interpretRatios({ Jzz: 0.1, Jpm: 0.0001, Jpmpm: 0, Jzpm: 0 }) // "Ising limit: …"
  */

@@ -18,7 +18,7 @@
  *  - Otherwise (dipolar-octupolar doublets, pure |±J⟩ states) the phase is fixed by the lowest power (J^+)^k,
  *    k ≥ 3, with a non-zero matrix element; the transverse pseudospin components are then higher multipoles and
  *    the four-coupling form is not the natural description (see `residualMeV` of the couplings).
- * Common practice for the construction (e.g. Rau & Gingras, Annu. Rev. Condens. Matter Phys. 10, 357 (2019),
+ * Common practice for the construction (e.g. Annu. Rev. Condens. Matter Phys. 10, 357 (2019),
  * §2; from memory); the operator list and the ordering rule are our own.
  */
 import { InputError } from '../errors';

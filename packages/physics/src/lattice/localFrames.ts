@@ -14,7 +14,7 @@ const S3 = Math.sqrt(3);
 const S6 = Math.sqrt(6);
 const S2 = Math.sqrt(2);
 
-// Ross, Savary, Gaulin & Balents, PRX 1, 021002 (2011), Appendix (from memory); ŷ = ẑ × x̂.
+// Phys. Rev. X 1, 021002 (2011), Appendix (from memory); ŷ = ẑ × x̂.
 const FRAMES: readonly LocalFrame[] = [
   { z: [1 / S3, 1 / S3, 1 / S3], x: [-2 / S6, 1 / S6, 1 / S6], y: [0, -1 / S2, 1 / S2] },
   { z: [1 / S3, -1 / S3, -1 / S3], x: [-2 / S6, -1 / S6, -1 / S6], y: [0, 1 / S2, -1 / S2] },

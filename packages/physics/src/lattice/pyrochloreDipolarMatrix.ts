@@ -5,8 +5,8 @@
  * D_ij = (μ0/4π) μ² ẑ_i · W(r_j − r_i) · ẑ_j and W the conducting-boundary Ewald tensor (`ewaldDipolarKernel`).
  * The diagonal D_ii (the interaction of a moment with its own periodic images and the Ewald self term) only adds
  * a constant; it is returned but not needed for spin flips. In the nearest-neighbour language of dipolar spin ice,
- * D = (μ0/4π) μ² / r_nn³ and the nearest-neighbour dipolar coupling is D_nn = 5D/3 (den Hertog & Gingras,
- * Phys. Rev. Lett. 84, 3430 (2000)).
+ * D = (μ0/4π) μ² / r_nn³ and the nearest-neighbour dipolar coupling is D_nn = 5D/3 (Phys. Rev. Lett.
+ * 84, 3430 (2000)).
  */
 import type { PyrochloreSupercell } from './supercell';
 import { ewaldDipolarKernel, type EwaldOptions } from './ewaldDipolarKernel';
@@ -75,7 +75,7 @@ export function pyrochloreDipolarMatrix(cell: PyrochloreSupercell, momentMuB: nu
 }
 
 /**
- * D = (μ0/4π) μ² / r_nn³ in K, r_nn = a√2/4 (den Hertog & Gingras 2000). D_nn = 5D/3.
+ * D = (μ0/4π) μ² / r_nn³ in K, r_nn = a√2/4 (PRL 84, 3430 (2000)). D_nn = 5D/3.
  * @example dipolarCouplingK(10, 10.124) // ≈ 1.36
  */
 export function dipolarCouplingK(momentMuB: number, latticeConstantAngstrom: number): number {

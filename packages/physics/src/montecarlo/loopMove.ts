@@ -1,7 +1,7 @@
 /**
  * The loop move for spin ice: a closed directed loop of spins, each pointing head to tail along the loop, is
  * reversed. Reversing it keeps the number of in- and out-pointing spins of every tetrahedron, so it moves between
- * ice states that single flips only reach through costly defects (Melko, den Hertog & Gingras, Phys. Rev. Lett. 87,
+ * ice states that single flips only reach through costly defects (Melko et al., Phys. Rev. Lett. 87,
  * 067203 (2001); Barkema & Newman, Phys. Rev. E 57, 1155 (1998) for the ice-model loop).
  *
  * Construction ("short loop"): pick a spin uniformly; follow its arrow into a tetrahedron; leave by one of that

@@ -1,5 +1,5 @@
 /**
- * Order parameter of the q = (001) ordered state of dipolar spin ice (Melko, den Hertog & Gingras, PRL 87, 067203
+ * Order parameter of the q = (001) ordered state of dipolar spin ice (Melko et al., PRL 87, 067203
  * (2001): the low-temperature state selected by the long-range dipolar interaction has ordering wavevector
  * (0,0,1)·2π/a or its cubic equivalents).
  *

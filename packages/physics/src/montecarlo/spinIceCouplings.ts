@@ -6,7 +6,7 @@
  *       the convention H = Σ J S_i·S_j with unit Ising vectors S_i = σ_i ẑ_i)
  *     + dipolar Ewald energy ½ Σ_ij D_ij σ_i σ_j (conducting boundary, `lattice/pyrochloreDipolarMatrix.ts`)
  *     − Σ_i μ μB B·ẑ_i σ_i / k_B.
- * In the nearest-neighbour language of den Hertog & Gingras (PRL 84, 3430 (2000)): J_nn = −J1/3 (ẑ_i·ẑ_j = −1/3)
+ * In the nearest-neighbour language of the dipolar spin-ice model (PRL 84, 3430 (2000)): J_nn = −J1/3 (ẑ_i·ẑ_j = −1/3)
  * and D_nn = 5D/3; spin ice needs J_eff = J_nn + D_nn > 0.
  * Stored as E = ½ Σ_{i≠j} J_ij σ_i σ_j − Σ b_i σ_i + constantK, J_ij symmetric with zero diagonal.
  */

@@ -1,7 +1,7 @@
 /**
  * Turn the time series of a run into thermodynamic results with error bars, in the units users compare with data:
  * energy per spin in K, heat capacity and entropy in J/(mol K) per mole of magnetic ions (R = N_A k_B per spin;
- * multiply by 2 for R2Ti2O7 per formula unit), magnetization in μB per spin along the chosen direction.
+ * multiply by 2 for R2M2O7 pyrochlores per formula unit), magnetization in μB per spin along the chosen direction.
  */
 import type { SpinIceRawResult } from './spinIceSimulation';
 import { heatCapacityJackknife, meanWithBinningError } from './heatCapacityJackknife';

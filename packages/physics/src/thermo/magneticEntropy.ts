@@ -8,7 +8,7 @@ export const R_LN2_J_PER_MOL_K = GAS_CONSTANT_J_PER_MOL_K * Math.LN2;
 export const PAULING_ENTROPY_J_PER_MOL_K = (GAS_CONSTANT_J_PER_MOL_K / 2) * Math.log(1.5);
 /**
  * R[ln 2 − ½ ln(3/2)] ≈ 4.078 J/(mol K): the entropy a spin ice releases when its Pauling residual entropy stays
- * frozen in (Ramirez et al., Nature 399, 333 (1999), with Pauling's count).
+ * frozen in (Pauling's count for ice, applied to spin ice; common practice).
  */
 export const SPIN_ICE_ENTROPY_J_PER_MOL_K = R_LN2_J_PER_MOL_K - PAULING_ENTROPY_J_PER_MOL_K;
 
