@@ -5,7 +5,7 @@
 #   2. every demo notebook executed with the in-process runner (`multiplet run`) into a scratch directory;
 #   3. the same notebooks through Debian's nbclient and our ZeroMQ kernel, outputs compared cell by cell;
 #   4. the fit against the hidden truth, the carried-over parameters, and the HTML report in headless chromium
-#      (every plot rendered, no console errors; screenshot to docs/screenshot-report.png).
+#      (every plot rendered, no console errors; screenshot in test-artifacts/demo/; MULTIPLET_UPDATE_DOCS=1 refreshes docs/).
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 if [ ! -f packages/cli/dist/multiplet.js ]; then
