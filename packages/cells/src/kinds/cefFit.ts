@@ -1,8 +1,9 @@
 /**
  * `[cef-fit] name` — fit the Stevens parameters of a crystal-field result to neutron peak lists and/or measured
  * spectra (from `data` cells), with a multi-start global search that reports every distinct minimum, Jacobian
- * errors and correlations, and optional posterior sampling (ensemble MCMC). From @multiplet/physics/fit (fitCef,
- * sampleCefPosterior). Seeded: the cell's seed drives the random starts and the sampler.
+ * errors and correlations, and optional posterior sampling (ensemble MCMC). From @multiplet/physics/fit (fitCefAsync,
+ * sampleCefPosteriorAsync: the synchronous fit's code, pausing so that progress shows live in the kernel). Seeded:
+ * the cell's seed drives the random starts and the sampler.
  *
  *   [cef-fit] fitA
  *   start: cefA
@@ -17,7 +18,7 @@
  *     - { data: m2K, temperature: 2 K, direction: [0, 0, 1] }
  */
 import {
-  fitCef, sampleCefPosterior, type CefFitSolution, type CefFitSpec, type MagnetizationObservation, type PeakObservation, type SpectrumObservation,
+  fitCefAsync, sampleCefPosteriorAsync, type CefFitSolution, type CefFitSpec, type MagnetizationObservation, type PeakObservation, type SpectrumObservation,
   type SusceptibilityObservation,
 } from '@multiplet/physics/fit';
 import { LINE_SHAPES } from '@multiplet/physics/neutron';
@@ -239,7 +240,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
       if ((p.from === undefined) !== (p.to === undefined)) ctx.fail(`peaks.${i}.from`, p.from, 'both from and to (a pinned transition), or neither');
     });
   },
-  run(input, ctx) {
+  async run(input, ctx) {
     const start = ctx.result<{ ion: string; symmetry: string; parametersMeV: Record<string, number> }>(input.start);
     const peaks: PeakObservation[] = (input.peaks ?? []).map((p) => ({
       energyMeV: p.energy,
@@ -315,10 +316,18 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
       ion: start.ion, symmetry: start.symmetry, start: start.parametersMeV, free: input.free, bounds, peaks, spectra, susceptibility, magnetization,
       fitIntrinsicWidth: input.fitWidth, intrinsicWidthStartMeV: input.widthStart,
     };
-    const report = fitCef(spec, { starts: input.starts, seed: ctx.seed, chi2Margin: input.chi2Margin, errorScaling: input.errorScaling, task: ctx.task });
+    // The fit pauses before every start, LM iteration and MCMC step; the host's event loop gets a turn about every
+    // 50 ms (progress displays go out, interrupts and comms are served), otherwise the pause costs one microtask.
+    let lastYield = performance.now();
+    const yieldNow = async (): Promise<void> => {
+      if (performance.now() - lastYield < 50) return;
+      await ctx.yieldNow();
+      lastYield = performance.now();
+    };
+    const report = await fitCefAsync(spec, { starts: input.starts, seed: ctx.seed, chi2Margin: input.chi2Margin, errorScaling: input.errorScaling, task: ctx.task, yieldNow });
     let posterior: CefFitCellResult['posterior'] = null;
     if (input.mcmcSteps > 0) {
-      const p = sampleCefPosterior(spec, report.best, { steps: input.mcmcSteps, walkers: input.mcmcWalkers, seed: ctx.seed, task: ctx.task });
+      const p = await sampleCefPosteriorAsync(spec, report.best, { steps: input.mcmcSteps, walkers: input.mcmcWalkers, seed: ctx.seed, task: ctx.task, yieldNow });
       posterior = {
         parameters: p.parameters,
         derived: p.derived,

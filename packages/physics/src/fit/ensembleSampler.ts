@@ -15,6 +15,7 @@
 import { InputError } from '../errors';
 import type { LongTask } from '../progress';
 import { createRandom, type Random } from '../random';
+import { runSteps, type Steps } from '../progress/steps';
 
 export interface EnsembleStart {
   /** Centre of the initial ball (e.g. the least-squares solution). */
@@ -68,6 +69,15 @@ export function ensembleSampler(
   start: EnsembleStart,
   options: EnsembleSamplerOptions,
 ): EnsembleSamplerResult {
+  return runSteps(ensembleSamplerSteps(logProbability, start, options));
+}
+
+/** ensembleSampler as pause points (progress/steps.ts): before every step and every derived-quantity evaluation. */
+export function* ensembleSamplerSteps(
+  logProbability: (parameters: Float64Array) => number,
+  start: EnsembleStart,
+  options: EnsembleSamplerOptions,
+): Steps<EnsembleSamplerResult> {
   const dim = start.center.length;
   if (dim === 0) throw new InputError('start.center', [], 'at least one parameter');
   if (start.spread.length !== dim) throw new InputError('start.spread', Array.from(start.spread), `${dim} widths`);
@@ -112,6 +122,7 @@ export function ensembleSampler(
   const half = walkers / 2;
 
   for (let step = 0; step < totalSteps; step++) {
+    yield;
     task?.checkpoint();
     for (let part = 0; part < 2; part++) {
       const first = part * half;
@@ -169,6 +180,7 @@ export function ensembleSampler(
     let sum: Float64Array | undefined;
     let sumSq: Float64Array | undefined;
     for (let s = 0; s < sampleCount; s++) {
+      yield;
       task?.checkpoint();
       const value = options.derived(samples.subarray(s * dim, (s + 1) * dim));
       if (!sum || !sumSq) {

@@ -15,16 +15,17 @@
  *   const report = fitCef({ ion: 'Er3+', symmetry: 'D3d', start: { B20: -0.05, B40: 1e-3 },
  *     peaks: [{ energyMeV: 7.9, errorMeV: 0.1, temperatureK: 5 }, …] }, { starts: 32, seed: 1 });
  *   report.best.parametersMeV; report.best.errorsMeV; report.minima.length
- * See also: sampleCefPosterior, multiStartSearch, cefTransitions
+ * See also: fitCefAsync (the same fit, pausing for the host's event loop), sampleCefPosterior, multiStartSearch, cefTransitions
  */
 import { InputError } from '../errors';
 import type { LongTask } from '../progress';
+import { runSteps, runStepsAsync, type Steps } from '../progress/steps';
 import { createRandom, type Random } from '../random';
 import { levelStrengths } from '../neutron/cefTransitions';
 import { CefFitModel, type CefFitSpec, type PeakAssignment } from './cef/cefFitModel';
 import { CefTwins } from './cef/cefTwins';
 import { finiteDifferenceJacobian } from './finiteDifferenceJacobian';
-import { multiStartSearch } from './multiStartSearch';
+import { multiStartSearchSteps } from './multiStartSearch';
 import type { LevenbergMarquardtResult } from './levenbergMarquardt';
 import type { LeastSquaresProblem } from './types';
 
@@ -203,6 +204,11 @@ export function describeCefSolution(
  * starts in the box put levels hundreds of meV away from the data and end in far local minima.
  */
 export function cefRandomStarts(model: CefFitModel, count: number, random: Random, task?: LongTask): number[][] {
+  return runSteps(cefRandomStartsSteps(model, count, random, task));
+}
+
+/** cefRandomStarts as pause points (progress/steps.ts): one pause per 64 starts. */
+function* cefRandomStartsSteps(model: CefFitModel, count: number, random: Random, task?: LongTask): Steps<number[][]> {
   const targets = [
     ...model.peaks.map((p) => Math.abs(p.energyMeV)),
     ...model.spectra.map((sp) => 0.8 * Math.max(...sp.energiesMeV.map(Math.abs))),
@@ -213,7 +219,10 @@ export function cefRandomStarts(model: CefFitModel, count: number, random: Rando
   const starts: number[][] = [];
   for (let k = 0; k < count; k++) {
     // One diagonalisation per start: thousands of starts take seconds, so an interrupt is checked here too.
-    if (k % 64 === 0) task?.checkpoint();
+    if (k % 64 === 0) {
+      yield;
+      task?.checkpoint();
+    }
     const x = Array.from({ length: p }, (_, j) => model.lowerScaled[j] + random.nextDouble() * (model.upperScaled[j] - model.lowerScaled[j]));
     if (largest > 0) {
       const levels = levelStrengths(model.ion, model.parametersMeV(x)).levelEnergiesMeV;
@@ -230,12 +239,26 @@ export function cefRandomStarts(model: CefFitModel, count: number, random: Rando
 
 /** Fit B_n^m to the data in `spec`; see the module comment. Throws InputError on bad input. */
 export function fitCef(spec: CefFitSpec, options: FitCefOptions = {}): CefFitReport {
+  return runSteps(fitCefSteps(spec, options));
+}
+
+/**
+ * fitCef that awaits `yieldNow()` before every start and every Levenberg–Marquardt iteration, so that a host sharing
+ * the thread (the kernel) can show `task.report` progress and serve messages while it runs. The same code as fitCef
+ * in the same order: the report is bit-identical. A rejection of `yieldNow` (an interrupt) stops the fit.
+ */
+export function fitCefAsync(spec: CefFitSpec, options: FitCefOptions & { readonly yieldNow: () => Promise<void> }): Promise<CefFitReport> {
+  return runStepsAsync(fitCefSteps(spec, options), options.yieldNow);
+}
+
+/** fitCef as pause points (progress/steps.ts). */
+export function* fitCefSteps(spec: CefFitSpec, options: FitCefOptions = {}): Steps<CefFitReport> {
   const model = new CefFitModel(spec);
   const problem = cefLeastSquaresProblem(model);
   const starts = options.starts ?? 0;
   if (!Number.isInteger(starts) || starts < 0) throw new InputError('starts', starts, 'a non-negative integer');
   const random = createRandom(options.seed ?? 0);
-  const randomStarts = cefRandomStarts(model, starts, random, options.task);
+  const randomStarts = yield* cefRandomStartsSteps(model, starts, random, options.task);
   const twins = new CefTwins(model);
   const local = {
     seed: options.seed ?? 0,
@@ -246,7 +269,7 @@ export function fitCef(spec: CefFitSpec, options: FitCefOptions = {}): CefFitRep
     chi2Tolerance: 1e-12,
     task: options.task,
   } as const;
-  const search = multiStartSearch(problem, {
+  const search = yield* multiStartSearchSteps(problem, {
     ...local,
     lower: model.lowerScaled,
     upper: model.upperScaled,

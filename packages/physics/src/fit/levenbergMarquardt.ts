@@ -22,6 +22,7 @@ import { finiteDifferenceJacobian } from './finiteDifferenceJacobian';
 import { applyQTranspose, householderQr, solveDampedTriangular } from './numerics/denseLinearAlgebra';
 import type { CovarianceSummary, LeastSquaresProblem } from './types';
 import type { LongTask } from '../progress';
+import { runSteps, type Steps } from '../progress/steps';
 
 export interface LevenbergMarquardtOptions {
   readonly lower?: ArrayLike<number>;
@@ -72,6 +73,15 @@ export function levenbergMarquardt(
   start: ArrayLike<number>,
   options: LevenbergMarquardtOptions = {},
 ): LevenbergMarquardtResult {
+  return runSteps(levenbergMarquardtSteps(problem, start, options));
+}
+
+/** levenbergMarquardt as pause points (progress/steps.ts): one pause before every iteration. */
+export function* levenbergMarquardtSteps(
+  problem: LeastSquaresProblem,
+  start: ArrayLike<number>,
+  options: LevenbergMarquardtOptions = {},
+): Steps<LevenbergMarquardtResult> {
   const p = problem.parameterCount;
   if (start.length !== p) throw new InputError('start', Array.from(start), `${p} parameter values`);
   const lower = Float64Array.from({ length: p }, (_, j) => (options.lower ? options.lower[j] : -Infinity));
@@ -139,6 +149,7 @@ export function levenbergMarquardt(
   let qtr = topOfQtr(qr, r);
 
   while (iterations < maxIterations) {
+    yield;
     iterations++;
     task?.checkpoint();
     // Scaled gradient g = Jᵀr / D.

@@ -16,7 +16,8 @@
 import { InputError } from '../errors';
 import type { LongTask } from '../progress';
 import { createRandom, type Random } from '../random';
-import { levenbergMarquardt, type LevenbergMarquardtOptions, type LevenbergMarquardtResult } from './levenbergMarquardt';
+import { levenbergMarquardtSteps, type LevenbergMarquardtOptions, type LevenbergMarquardtResult } from './levenbergMarquardt';
+import { runSteps, type Steps } from '../progress/steps';
 import type { LeastSquaresProblem } from './types';
 
 export interface MultiStartOptions extends Omit<LevenbergMarquardtOptions, 'lower' | 'upper' | 'task'> {
@@ -71,6 +72,11 @@ export interface MultiStartResult {
 
 /** Run local fits from random starts and return the distinct minima within the χ² margin, best first. */
 export function multiStartSearch(problem: LeastSquaresProblem, options: MultiStartOptions): MultiStartResult {
+  return runSteps(multiStartSearchSteps(problem, options));
+}
+
+/** multiStartSearch as pause points (progress/steps.ts): before every start and every LM iteration. */
+export function* multiStartSearchSteps(problem: LeastSquaresProblem, options: MultiStartOptions): Steps<MultiStartResult> {
   const p = problem.parameterCount;
   const lower = Array.from({ length: p }, (_, j) => options.lower[j]);
   const upper = Array.from({ length: p }, (_, j) => options.upper[j]);
@@ -104,13 +110,14 @@ export function multiStartSearch(problem: LeastSquaresProblem, options: MultiSta
 
   const results: LevenbergMarquardtResult[] = [];
   let evaluations = screeningEvaluations;
-  points.forEach((start, k) => {
+  for (let k = 0; k < points.length; k++) {
+    yield;
     task?.checkpoint();
     task?.report(k, points.length, 'multi-start');
-    const fit = levenbergMarquardt(problem, start, { ...options, lower, upper, task });
+    const fit = yield* levenbergMarquardtSteps(problem, points[k], { ...options, lower, upper, task });
     evaluations += fit.evaluations;
     results.push(options.canonicalize ? options.canonicalize(fit) : fit);
-  });
+  }
   task?.report(points.length, points.length, 'multi-start');
 
   results.sort((a, b) => a.chi2 - b.chi2);

@@ -15,10 +15,11 @@
  */
 import { InputError } from '../errors';
 import type { LongTask } from '../progress';
+import { runSteps, runStepsAsync, type Steps } from '../progress/steps';
 import { angularMomentumMatrices } from '../cef/angularMomentum';
 import { doubletGTensor } from '../cef/groundDoubletGTensor';
 import { CefFitModel, type CefFitSpec } from './cef/cefFitModel';
-import { ensembleSampler } from './ensembleSampler';
+import { ensembleSamplerSteps } from './ensembleSampler';
 import type { CefFitSolution } from './fitCef';
 
 export interface SampleCefPosteriorOptions {
@@ -55,6 +56,23 @@ export interface CefPosterior {
 
 /** Sample the posterior of the free B_n^m of `spec` starting from a fitted `solution`. */
 export function sampleCefPosterior(spec: CefFitSpec, solution: CefFitSolution, options: SampleCefPosteriorOptions = {}): CefPosterior {
+  return runSteps(sampleCefPosteriorSteps(spec, solution, options));
+}
+
+/**
+ * sampleCefPosterior that awaits `yieldNow()` before every MCMC step and every derived-quantity evaluation (see
+ * fitCefAsync); bit-identical to the synchronous call.
+ */
+export function sampleCefPosteriorAsync(
+  spec: CefFitSpec,
+  solution: CefFitSolution,
+  options: SampleCefPosteriorOptions & { readonly yieldNow: () => Promise<void> },
+): Promise<CefPosterior> {
+  return runStepsAsync(sampleCefPosteriorSteps(spec, solution, options), options.yieldNow);
+}
+
+/** sampleCefPosterior as pause points (progress/steps.ts). */
+export function* sampleCefPosteriorSteps(spec: CefFitSpec, solution: CefFitSolution, options: SampleCefPosteriorOptions = {}): Steps<CefPosterior> {
   const model = new CefFitModel(spec);
   const p = model.parameterCount;
   const nB = model.freeKeys.length;
@@ -84,7 +102,7 @@ export function sampleCefPosterior(spec: CefFitSpec, solution: CefFitSolution, o
     const g = doubletGTensor(levels.eigenvectors, 0, 1, jm, model.ion.gJ);
     return [...energies, g.gParallel, g.gPerpendicular, g.gParallel / 2];
   };
-  const run = ensembleSampler(logProbability, { center, spread }, {
+  const run = yield* ensembleSamplerSteps(logProbability, { center, spread }, {
     steps: options.steps ?? 1000,
     burnIn: options.burnIn,
     walkers: options.walkers,

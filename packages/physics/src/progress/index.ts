@@ -3,7 +3,8 @@
  *
  * Physics functions that can run long take an optional `LongTask` argument. They call `task.report(done, total)`
  * now and then and `task.checkpoint()` inside their loops; `checkpoint` throws `CancelledError` once `cancel` fires.
- * Async callers can `await task.yieldNow()` so that a kernel's control channel gets served between chunks.
+ * Work that must also run cooperatively is written as a generator of pause points (steps.ts): the host injects a
+ * `yieldNow` and gets a turn of its event loop between chunks.
  */
 import { CancelledError } from '../errors';
 
