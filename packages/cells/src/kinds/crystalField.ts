@@ -23,6 +23,7 @@ import {
   solveCef,
   describeLevels,
   type CefSolution,
+  type GroundDoublet,
 } from '@multiplet/physics/cef';
 import { KELVIN_IN_MEV, INVERSE_CM_IN_MEV } from '@multiplet/physics/units';
 import { defineKind } from './types';
@@ -72,17 +73,8 @@ export interface CrystalFieldResult {
   }[];
   /** Eigenvector k (column k of the solver) as |J, m⟩ amplitudes, basis index i ↔ m = J − i. */
   eigenvectors: { re: number[]; im: number[] }[];
-  groundDoublet: {
-    gParallel: number;
-    gPerpendicular: number;
-    gTensor: number[][];
-    gPrincipalValues: number[];
-    gPrincipalAxes: number[][];
-    momentParallelMuB: number;
-    kramers: boolean;
-    /** Gap to the next level in meV; null when the doublet is the only level. */
-    gapMeV: number | null;
-  } | null;
+  /** The solver's ground doublet as JSON: the gap to the next level in meV is null when the doublet is the only level. */
+  groundDoublet: (Omit<GroundDoublet, 'gapMeV'> & { gapMeV: number | null }) | null;
   classification: string;
   summary: string;
   warnings: string[];

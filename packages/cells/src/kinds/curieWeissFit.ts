@@ -8,7 +8,7 @@
  *   range: [10 K, 300 K]
  *   withChi0: true
  */
-import { curieWeissFit } from '@multiplet/physics/thermo';
+import { curieWeissFit, type CurieWeissResult } from '@multiplet/physics/thermo';
 import { defineKind } from './types';
 import { escapeHtml, formatNumber, htmlKeyValue } from '../render/format';
 import { dataColumn, susceptibilityToEmuPerMol, VEGA_LITE_SCHEMA } from './thermoShared';
@@ -23,14 +23,8 @@ interface CurieWeissInput {
   perFormulaUnit: boolean;
 }
 
-export interface CurieWeissCellResult {
-  curieConstantEmuKPerMol: number;
-  weissTemperatureK: number;
-  chi0EmuPerMol: number;
-  effectiveMomentMuB: number;
-  uncertainty: { curieConstantEmuKPerMol: number; weissTemperatureK: number; chi0EmuPerMol: number; effectiveMomentMuB: number };
-  pointsUsed: number;
-  reducedChiSquared: number;
+/** The physics fit result plus what the cell shows: the range used and the data points. */
+export interface CurieWeissCellResult extends CurieWeissResult {
   rangeK: number[] | null;
   temperaturesK: number[];
   chiEmuPerMol: number[];
