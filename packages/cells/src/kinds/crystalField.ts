@@ -22,6 +22,7 @@ import {
   normalizeCefParameters,
   solveCef,
   describeLevels,
+  formatAngularMomentum,
   type CefSolution,
   type GroundDoublet,
 } from '@multiplet/physics/cef';
@@ -203,7 +204,7 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
       level.states[0]?.ket ?? '',
     ]);
     const warnings = r.warnings.map((w) => `warning: ${w}`);
-    const text = [`crystal field ${info.name}: ${r.ion} (J = ${r.J}) in ${r.symmetry}: ${r.summary}`, textTable(columns, rows, 20), ...warnings].join('\n');
+    const text = [`crystal field ${info.name}: ${r.ion} (J = ${formatAngularMomentum(r.J)}) in ${r.symmetry}: ${r.summary}`, textTable(columns, rows, 20), ...warnings].join('\n');
     const params = Object.entries(r.parametersMeV).map(([k, v]): [string, string] => [k, `${formatNumber(v)} meV`]);
     const g = r.groundDoublet;
     const gEntries: [string, string][] = g
@@ -217,7 +218,7 @@ export const crystalFieldKind = defineKind<CrystalFieldInput, CrystalFieldResult
         ]
       : [];
     const html = [
-      `<div class="multiplet-crystal-field"><p><b>${escapeHtml(info.name)}</b>: ${escapeHtml(r.ion)} (J = ${r.J}) in ${escapeHtml(r.symmetry)} — ${escapeHtml(r.summary)}</p>`,
+      `<div class="multiplet-crystal-field"><p><b>${escapeHtml(info.name)}</b>: ${escapeHtml(r.ion)} (J = ${formatAngularMomentum(r.J)}) in ${escapeHtml(r.symmetry)} — ${escapeHtml(r.summary)}</p>`,
       htmlTable('levels', columns, rows),
       htmlKeyValue('Stevens parameters', params),
       g ? htmlKeyValue(`ground doublet (${r.classification})`, gEntries) : '',

@@ -35,7 +35,11 @@ export interface DescribedLevel {
   states: DescribedState[];
 }
 
-function formatM(m: number): string {
+/**
+ * An angular-momentum quantum number as written in the trade: whole numbers plain, half-integers as fractions.
+ * @example formatAngularMomentum(7.5) // "15/2"; formatAngularMomentum(-1.5) // "−3/2"
+ */
+export function formatAngularMomentum(m: number): string {
   const twice = Math.round(2 * m);
   const sign = twice < 0 ? '−' : '';
   return twice % 2 === 0 ? `${sign}${Math.abs(twice / 2)}` : `${sign}${Math.abs(twice)}/2`;
@@ -77,7 +81,7 @@ export function describeLevels(solution: CefSolution, weightThreshold = 1e-3): D
       const ket = components
         .map((c, i) => {
           const amp = formatAmplitude(c.re, c.im);
-          const text = `${amp}|${formatM(c.m)}⟩`;
+          const text = `${amp}|${formatAngularMomentum(c.m)}⟩`;
           if (i === 0) return text;
           return amp.startsWith('-') ? ` − ${text.slice(1)}` : ` + ${text}`;
         })

@@ -13,7 +13,7 @@ export { SITE_SYMMETRIES, CUBIC_SYMMETRIES, allowedParameters } from './siteSymm
 export { normalizeCefParameters, type NormalizeCefOptions } from './normalizeCefParameters';
 export { solveCef, classifyDoublet, groupLevels, type CefLevel, type GroundDoublet, type CefSolution, type SolveCefOptions } from './solveCef';
 export { doubletGTensor, type DoubletGTensor } from './groundDoubletGTensor';
-export { describeLevels, type DescribedLevel, type DescribedState, type StateComponent } from './describeLevels';
+export { describeLevels, formatAngularMomentum, type DescribedLevel, type DescribedState, type StateComponent } from './describeLevels';
 export { rotateCefParameters } from './rotateCefParameters';
 export { wignerD, wignerSmallD, eulerAnglesFromMatrix, rotationMatrixFromEuler, type EulerAngles } from './wignerRotation';
 export { cubicToTrigonal, TRIGONAL_FRAME_OF_CUBIC } from './cubicToTrigonal';
