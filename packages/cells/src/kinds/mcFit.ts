@@ -35,7 +35,10 @@ interface McFitInput extends SpinIceModelInput {
 
 export interface McFitCellResult {
   parametersK: Record<string, number>;
+  /** 1σ: data errors and the model's Monte Carlo noise together. */
   uncertaintiesK: Record<string, number>;
+  uncertaintiesDataOnlyK: Record<string, number>;
+  uncertaintiesModelNoiseK: Record<string, number>;
   chiSquare: number;
   reducedChiSquare: number;
   degreesOfFreedom: number;
@@ -111,12 +114,14 @@ export const mcFitKind = defineKind<McFitInput, McFitCellResult>({
         trustK: input.trust,
         loopMovesPerSweep: input.loopMovesPerSweep,
       },
-      async (runOptions, iteration) => (await runSpinIceJob({ ...runOptions, thermalizationSweeps: input.thermalizationSweeps }, ctx, `simulation ${iteration + 1}/${input.maxSimulations}: `)).data,
+      async (runOptions, iteration) => (await runSpinIceJob({ ...runOptions, thermalizationSweeps: input.thermalizationSweeps }, ctx, iteration < input.maxSimulations ? `simulation ${iteration + 1}/${input.maxSimulations}: ` : `noise replicate ${iteration + 1 - input.maxSimulations}: `)).data,
     );
     const m = fit.model;
     return {
       parametersK: fit.parametersK as Record<string, number>,
       uncertaintiesK: fit.uncertaintiesK as Record<string, number>,
+      uncertaintiesDataOnlyK: fit.uncertaintiesDataOnlyK as Record<string, number>,
+      uncertaintiesModelNoiseK: fit.uncertaintiesModelNoiseK as Record<string, number>,
       chiSquare: fit.chiSquare,
       reducedChiSquare: fit.reducedChiSquare,
       degreesOfFreedom: fit.degreesOfFreedom,
@@ -137,8 +142,8 @@ export const mcFitKind = defineKind<McFitInput, McFitCellResult>({
     };
   },
   render(r, info) {
-    const columns = [{ name: 'parameter', unit: '' }, { name: 'value', unit: 'K' }, { name: 'σ', unit: 'K' }];
-    const rows = Object.keys(r.parametersK).map((k) => [k, r.parametersK[k], r.uncertaintiesK[k]]);
+    const columns = [{ name: 'parameter', unit: '' }, { name: 'value', unit: 'K' }, { name: 'σ', unit: 'K' }, { name: 'σ data', unit: 'K' }, { name: 'σ MC', unit: 'K' }];
+    const rows = Object.keys(r.parametersK).map((k) => [k, r.parametersK[k], r.uncertaintiesK[k], r.uncertaintiesDataOnlyK[k], r.uncertaintiesModelNoiseK[k]]);
     const values = r.temperaturesK.flatMap((t, k) => [
       { T: t, C: r.dataJPerMolK[k], lo: r.dataJPerMolK[k] - r.errorJPerMolK[k], hi: r.dataJPerMolK[k] + r.errorJPerMolK[k], what: 'data' },
       { T: t, C: r.modelJPerMolK[k], what: 'Monte Carlo (reweighted)' },

@@ -7,8 +7,14 @@
  *   E'_n = Σ_s J'_s e_{s,n} + (D'/D) E_dip,n + (D'/D)^{1/2} E_Z,n,  C'(T) = (⟨E'²⟩' − ⟨E'⟩'²)/(N k_B T²),
  * inside a trust box around the simulated point (reweighting is only accurate nearby). The next iteration
  * re-simulates at the new point; the fit stops when a step stays inside the box and changes χ² by < 1 %.
- * χ² uses the data errors only; the quoted parameter errors come from the final Jacobian (Monte Carlo noise of the
- * model is not included, so use enough sweeps that the model error is below the data error).
+ * χ² uses the data errors only. The quoted parameter errors add the Monte Carlo noise of the model to the data part
+ * (from the final Jacobian): after the fit, `noiseReplicates` more simulations at the fitted point with independent
+ * seeds are each refitted by the same reweighting step, and the sample variance of the fitted values (the main fit
+ * and the replicates, R degrees of freedom) is added to the data variance. The data are the same in every refit, so
+ * that spread is the model's noise alone. (A block jackknife of the reweighted C with fixed reweighting free energies
+ * was tried first and underestimated the seed-to-seed spread of J1 about six-fold; independent runs capture the noise of the
+ * free energies and the autocorrelation without assumptions.) With R = 3 the noise part is itself uncertain by
+ * roughly ±40 % (a σ from 3 degrees of freedom).
  */
 import { runSpinIceMonteCarlo } from './runSpinIceMonteCarlo';
 import { spinIceRunData, type SpinIceRunData } from './spinIceRunData';
@@ -36,6 +42,8 @@ export interface HeatCapacityFitOptions {
   seed: number;
   /** Outer iterations (simulations); default 4. */
   maxSimulations?: number;
+  /** Extra simulations at the fitted point with independent seeds for the model-noise error; default 3, 0 = none. */
+  noiseReplicates?: number;
   /** Half-width of the trust box per iteration in K; default max(0.3 K, 30 % of |value|). */
   trustK?: number;
   loopMovesPerSweep?: number;
@@ -44,7 +52,15 @@ export interface HeatCapacityFitOptions {
 /** Result of the fit. */
 export interface HeatCapacityFitResult {
   parametersK: Partial<Record<FitParameter, number>>;
+  /** 1σ errors from the data errors and the Monte Carlo noise of the model together (variances added). */
   uncertaintiesK: Partial<Record<FitParameter, number>>;
+  /** 1σ errors from the data errors alone (what the fit would quote for a noiseless model). */
+  uncertaintiesDataOnlyK: Partial<Record<FitParameter, number>>;
+  /** 1σ Monte Carlo noise of the fitted values: spread of the refits of the independent replicate simulations. */
+  uncertaintiesModelNoiseK: Partial<Record<FitParameter, number>>;
+  /** Fitted values from each replicate simulation (same data, independent seeds). */
+  replicateParametersK: Partial<Record<FitParameter, number>>[];
+  /** χ² with the data errors only. */
   chiSquare: number;
   reducedChiSquare: number;
   degreesOfFreedom: number;
@@ -79,8 +95,14 @@ export function fitHeatCapacity(options: HeatCapacityFitOptions, task: LongTask 
       break;
     }
   }
-  task.report(plan.maxSimulations, plan.maxSimulations, 'done');
-  return finish(options, last!, history, converged, model);
+  const replicates: Float64Array[] = [];
+  for (let r = 0; r < plan.noiseReplicates; r++) {
+    task.report(plan.maxSimulations + r, plan.maxSimulations + plan.noiseReplicates, 'noise replicate');
+    const data = spinIceRunData(runSpinIceMonteCarlo(plan.runOptions(model, plan.maxSimulations + r), task).raw);
+    replicates.push(fitStep(data, model, options).values);
+  }
+  task.report(plan.maxSimulations + plan.noiseReplicates, plan.maxSimulations + plan.noiseReplicates, 'done');
+  return finish(options, last!, history, converged, model, replicates);
 }
 
 /**
@@ -107,7 +129,12 @@ export async function fitHeatCapacityAsync(
       break;
     }
   }
-  return finish(options, last!, history, converged, model);
+  const replicates: Float64Array[] = [];
+  for (let r = 0; r < plan.noiseReplicates; r++) {
+    const data = await simulate(plan.runOptions(model, plan.maxSimulations + r), plan.maxSimulations + r);
+    replicates.push(fitStep(data, model, options).values);
+  }
+  return finish(options, last!, history, converged, model, replicates);
 }
 
 interface FitStep {
@@ -141,8 +168,11 @@ function planFit(options: HeatCapacityFitOptions) {
   const simT = options.simulationTemperaturesK ?? Array.from({ length: 16 }, (_, k) => 0.8 * tMin * Math.pow((1.25 * tMax) / (0.8 * tMin), k / 15));
   const maxSimulations = options.maxSimulations ?? 4;
   if (!Number.isInteger(maxSimulations) || maxSimulations < 1) throw new InputError('maxSimulations', maxSimulations, 'a positive integer');
+  const noiseReplicates = options.noiseReplicates ?? 3;
+  if (!Number.isInteger(noiseReplicates) || noiseReplicates < 0) throw new InputError('noiseReplicates', noiseReplicates, 'a non-negative integer');
   return {
     maxSimulations,
+    noiseReplicates,
     model: { ...options.model, exchangeK: { ...(options.model.exchangeK ?? {}) } } as SpinIceModel,
     runOptions: (model: SpinIceModel, it: number): SpinIceRunOptions => ({
       model, temperaturesK: simT, sweeps: options.sweeps, seed: options.seed + 7919 * it, recordShellSums: true, loopMovesPerSweep: options.loopMovesPerSweep,
@@ -231,12 +261,22 @@ function fitStep(run: SpinIceRunData, model: SpinIceModel, options: HeatCapacity
   };
 }
 
-function finish(options: HeatCapacityFitOptions, last: FitStep, history: HeatCapacityFitResult['history'], converged: boolean, model: SpinIceModel): HeatCapacityFitResult {
+function finish(options: HeatCapacityFitOptions, last: FitStep, history: HeatCapacityFitResult['history'], converged: boolean, model: SpinIceModel, replicates: Float64Array[]): HeatCapacityFitResult {
   const params = options.parameters;
   const dof = options.data.temperaturesK.length - params.length;
+  // Sample variance of the main fit and its replicates (R degrees of freedom); 0 without replicates.
+  const all = [last.values, ...replicates];
+  const noise = params.map((_, k) => {
+    if (replicates.length === 0) return 0;
+    const mean = all.reduce((s, v) => s + v[k], 0) / all.length;
+    return Math.sqrt(all.reduce((s, v) => s + (v[k] - mean) ** 2, 0) / (all.length - 1));
+  });
   return {
     parametersK: Object.fromEntries(params.map((p, k) => [p, last.values[k]])),
-    uncertaintiesK: Object.fromEntries(params.map((p, k) => [p, last.errors[k]])),
+    uncertaintiesK: Object.fromEntries(params.map((p, k) => [p, Math.hypot(last.errors[k], noise[k])])),
+    uncertaintiesDataOnlyK: Object.fromEntries(params.map((p, k) => [p, last.errors[k]])),
+    uncertaintiesModelNoiseK: Object.fromEntries(params.map((p, k) => [p, noise[k]])),
+    replicateParametersK: replicates.map((v) => Object.fromEntries(params.map((p, k) => [p, v[k]]))),
     chiSquare: last.chi2,
     reducedChiSquare: last.chi2 / dof,
     degreesOfFreedom: dof,
