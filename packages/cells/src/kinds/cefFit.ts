@@ -124,6 +124,17 @@ const stevensKey = (key: string) => {
   return index ? parameterKey(index.n, index.m) : undefined;
 };
 
+/** Fields shared by the χ(T) and M(B) datasets of a joint fit. */
+const BULK_DATASET_FIELDS = {
+  errorColumn: { type: 'string', doc: 'Error column (default: the third); same unit as the values.' },
+  direction: { type: 'list', of: { type: 'number', doc: 'Component.' }, minItems: 3, maxItems: 3, doc: 'Field direction [x, y, z] in the crystal frame (default: powder).' },
+  sites: { type: 'choice', values: ['single', 'pyrochlore'], default: 'single', doc: 'Site frames: one site, or the four ⟨111⟩ frames of the pyrochlore lattice.' },
+  meanField: { type: 'number', default: 0, doc: 'Molecular-field constant λ (mol/emu per mole of ions): 1/χ = 1/χ_CEF − λ.' },
+  fitScale: { type: 'boolean', default: false, doc: 'Fit a scale factor for this dataset (e.g. an uncertain sample mass).' },
+  weight: { type: 'number', min: 0, default: 1, doc: 'Relative weight of this dataset in χ².' },
+  perFormulaUnit: { type: 'boolean', default: false, doc: 'The data are per mole of formula units: divided by the sample’s ions per formula unit.' },
+} as const;
+
 export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
   kind: 'cef-fit',
   summary: 'fit B_n^m to neutron peaks/spectra: Levenberg–Marquardt + multi-start minima, errors, correlations, optional MCMC',
@@ -189,13 +200,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
           data: { type: 'reference', kinds: ['data'], required: true, doc: 'A data result: T, χ and error columns.' },
           temperatureColumn: { type: 'string', doc: 'Temperature column (default: the first; unit K).' },
           chiColumn: { type: 'string', doc: 'χ column (default: the second; emu/mol, cm^3/mol or m^3/mol).' },
-          errorColumn: { type: 'string', doc: 'Error column (default: the third); same unit as the values.' },
-          direction: { type: 'list', of: { type: 'number', doc: 'Component.' }, minItems: 3, maxItems: 3, doc: 'Field direction [x, y, z] in the crystal frame (default: powder).' },
-          sites: { type: 'choice', values: ['single', 'pyrochlore'], default: 'single', doc: 'Site frames: one site, or the four ⟨111⟩ frames of the pyrochlore lattice.' },
-          meanField: { type: 'number', default: 0, doc: 'Molecular-field constant λ (mol/emu per mole of ions): 1/χ = 1/χ_CEF − λ.' },
-          fitScale: { type: 'boolean', default: false, doc: 'Fit a scale factor for this dataset (e.g. an uncertain sample mass).' },
-          weight: { type: 'number', min: 0, default: 1, doc: 'Relative weight of this dataset in χ².' },
-          perFormulaUnit: { type: 'boolean', default: false, doc: 'The data are per mole of formula units: divided by the sample’s ions per formula unit.' },
+          ...BULK_DATASET_FIELDS,
         },
       },
     },
@@ -210,13 +215,7 @@ export const cefFitKind = defineKind<CefFitInput, CefFitCellResult>({
           temperature: { type: 'quantity', unit: 'K', min: 0, required: true, doc: 'Temperature of the measurement (> 0).' },
           fieldColumn: { type: 'string', doc: 'Field column μ0H (default: the first; T, or Oe).' },
           momentColumn: { type: 'string', doc: 'Moment column (default: the second; muB per ion).' },
-          errorColumn: { type: 'string', doc: 'Error column (default: the third); same unit as the values.' },
-          direction: { type: 'list', of: { type: 'number', doc: 'Component.' }, minItems: 3, maxItems: 3, doc: 'Field direction [x, y, z] in the crystal frame (default: powder).' },
-          sites: { type: 'choice', values: ['single', 'pyrochlore'], default: 'single', doc: 'Site frames: one site, or the four ⟨111⟩ frames of the pyrochlore lattice.' },
-          meanField: { type: 'number', default: 0, doc: 'Molecular-field constant λ (mol/emu per mole of ions): 1/χ = 1/χ_CEF − λ.' },
-          fitScale: { type: 'boolean', default: false, doc: 'Fit a scale factor for this dataset (e.g. an uncertain sample mass).' },
-          weight: { type: 'number', min: 0, default: 1, doc: 'Relative weight of this dataset in χ².' },
-          perFormulaUnit: { type: 'boolean', default: false, doc: 'The data are per mole of formula units: divided by the sample’s ions per formula unit.' },
+          ...BULK_DATASET_FIELDS,
         },
       },
     },

@@ -79,30 +79,15 @@ export interface HeatCapacityFitResult {
  * See also: multiHistogramReweighting, runSpinIceMonteCarlo
  */
 export function fitHeatCapacity(options: HeatCapacityFitOptions, task: LongTask = NO_TASK): HeatCapacityFitResult {
-  const plan = planFit(options);
-  let model = plan.model;
-  const history: HeatCapacityFitResult['history'] = [];
-  let last: FitStep | undefined;
-  let converged = false;
-  for (let it = 0; it < plan.maxSimulations; it++) {
-    task.report(it, plan.maxSimulations, 'simulate');
-    const data = spinIceRunData(runSpinIceMonteCarlo(plan.runOptions(model, it), task).raw);
-    last = fitStep(data, model, options);
-    history.push(last.history);
-    model = last.model;
-    if (last.settled) {
-      converged = true;
-      break;
-    }
+  const fit = fitSimulations(options);
+  let next = fit.next();
+  while (!next.done) {
+    const { runOptions, done, total, phase } = next.value;
+    task.report(done, total, phase);
+    next = fit.next(spinIceRunData(runSpinIceMonteCarlo(runOptions, task).raw));
   }
-  const replicates: Float64Array[] = [];
-  for (let r = 0; r < plan.noiseReplicates; r++) {
-    task.report(plan.maxSimulations + r, plan.maxSimulations + plan.noiseReplicates, 'noise replicate');
-    const data = spinIceRunData(runSpinIceMonteCarlo(plan.runOptions(model, plan.maxSimulations + r), task).raw);
-    replicates.push(fitStep(data, model, options).values);
-  }
-  task.report(plan.maxSimulations + plan.noiseReplicates, plan.maxSimulations + plan.noiseReplicates, 'done');
-  return finish(options, last!, history, converged, model, replicates);
+  task.report(next.value.total, next.value.total, 'done');
+  return next.value.result;
 }
 
 /**
@@ -114,13 +99,35 @@ export async function fitHeatCapacityAsync(
   options: HeatCapacityFitOptions,
   simulate: (runOptions: SpinIceRunOptions, iteration: number) => Promise<SpinIceRunData>,
 ): Promise<HeatCapacityFitResult> {
+  const fit = fitSimulations(options);
+  let next = fit.next();
+  while (!next.done) next = fit.next(await simulate(next.value.runOptions, next.value.iteration));
+  return next.value.result;
+}
+
+/** One simulation the fit asks for: its options, its index, and progress counts for the report. */
+interface SimulationRequest {
+  runOptions: SpinIceRunOptions;
+  iteration: number;
+  done: number;
+  total: number;
+  phase: string;
+}
+
+/**
+ * The fit written once: it yields each simulation it needs and receives its data, so the synchronous and the
+ * worker-driven entry points run exactly the same steps.
+ */
+function* fitSimulations(
+  options: HeatCapacityFitOptions,
+): Generator<SimulationRequest, { result: HeatCapacityFitResult; total: number }, SpinIceRunData> {
   const plan = planFit(options);
   let model = plan.model;
   const history: HeatCapacityFitResult['history'] = [];
   let last: FitStep | undefined;
   let converged = false;
   for (let it = 0; it < plan.maxSimulations; it++) {
-    const data = await simulate(plan.runOptions(model, it), it);
+    const data = yield { runOptions: plan.runOptions(model, it), iteration: it, done: it, total: plan.maxSimulations, phase: 'simulate' };
     last = fitStep(data, model, options);
     history.push(last.history);
     model = last.model;
@@ -129,12 +136,14 @@ export async function fitHeatCapacityAsync(
       break;
     }
   }
+  const total = plan.maxSimulations + plan.noiseReplicates;
   const replicates: Float64Array[] = [];
   for (let r = 0; r < plan.noiseReplicates; r++) {
-    const data = await simulate(plan.runOptions(model, plan.maxSimulations + r), plan.maxSimulations + r);
+    const iteration = plan.maxSimulations + r;
+    const data = yield { runOptions: plan.runOptions(model, iteration), iteration, done: iteration, total, phase: 'noise replicate' };
     replicates.push(fitStep(data, model, options).values);
   }
-  return finish(options, last!, history, converged, model, replicates);
+  return { result: finish(options, last!, history, converged, model, replicates), total };
 }
 
 interface FitStep {
